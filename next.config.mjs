@@ -1,0 +1,15 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  reactStrictMode: true,
+  poweredByHeader: false,
+  // Server-only packages with native parts or Node APIs stay out of the bundle.
+  serverExternalPackages: ["@node-rs/argon2", "postgres", "nodemailer", "pg-boss"],
+  experimental: {
+    serverActions: {
+      // Forged posts from another origin are refused by Next's Origin/Host check; a reverse
+      // proxy's public host can be allowed here through the environment.
+      allowedOrigins: process.env.APP_ALLOWED_ORIGINS ? process.env.APP_ALLOWED_ORIGINS.split(",") : [],
+    },
+  },
+};
+export default nextConfig;
