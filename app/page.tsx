@@ -1,3 +1,6 @@
-export default function Home() {
-  return <main className="p-8">Loopwright</main>;
+import { redirect } from "next/navigation";
+import { currentSession } from "./_lib/auth";
+
+export default async function Home() {
+  redirect((await currentSession()).user ? "/dashboard" : "/sign-in");
 }

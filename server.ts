@@ -1,0 +1,49 @@
+// The production server: `npm start` runs it after `next build`. A small custom server around
+// Next's request handler, because sign-in rate limiting needs the real peer address: it is written
+// into a private header here (any inbound copy is dropped), so a client cannot choose its own.
+// With --mail-catcher it also runs the local SMTP catcher; with --mailbox it enables the admins'
+// mailbox page. Both are for local and demo installations.
+import { loadEnvConfig } from "@next/env";
+import { createServer } from "node:http";
+import next from "next";
+import { ensureLocalDatabase } from "./db/local-postgres";
+import { startMailCatcher } from "./app/_lib/mail-catcher";
+
+const PEER_HEADER = "x-loopwright-peer"; // read by app/_lib/client-address.ts
+
+async function main() {
+  const root = process.cwd();
+  loadEnvConfig(root, false);
+  const args = new Set(process.argv.slice(2));
+  const port = Number(process.env.PORT ?? 3000);
+  const hostname = process.env.HOST ?? "127.0.0.1";
+
+  const { url } = await ensureLocalDatabase();
+  process.env.DATABASE_URL = url;
+  process.env.APP_URL ??= `http://${hostname}:${port}`;
+
+  if (args.has("--mail-catcher")) {
+    const smtpPort = Number(process.env.SMTP_PORT ?? 2525);
+    process.env.SMTP_HOST = "127.0.0.1";
+    process.env.SMTP_PORT = String(smtpPort);
+    await startMailCatcher({ port: smtpPort, databaseUrl: url });
+    console.log(`[mail] catching mail on smtp://127.0.0.1:${smtpPort}`);
+  }
+  if (args.has("--mailbox")) process.env.MAILBOX_ENABLED = "true";
+
+  const app = next({ dev: false, dir: root, hostname, port });
+  await app.prepare();
+  const handle = app.getRequestHandler();
+  createServer((req, res) => {
+    delete req.headers[PEER_HEADER];
+    req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "unknown-peer";
+    void handle(req, res);
+  }).listen(port, hostname, () => {
+    console.log(`[app] Loopwright on ${process.env.APP_URL}${process.env.MAILBOX_ENABLED === "true" ? ` (mailbox: ${process.env.APP_URL}/admin/mailbox)` : ""}`);
+  });
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

@@ -1,0 +1,27 @@
+import { desc, sql as dsql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { caughtMail } from "@/db/schema";
+
+/** Waits for a message to an address to reach the SMTP catcher (which stores it in PostgreSQL). */
+export async function waitForMail(to: string, subjectIncludes: string, timeoutMs = 10_000) {
+  const started = Date.now();
+  while (Date.now() - started < timeoutMs) {
+    const [mail] = await getDb()
+      .select()
+      .from(caughtMail)
+      .where(dsql`${to.toLowerCase()} = any(${caughtMail.envelopeTo}) and ${caughtMail.subject} like ${"%" + subjectIncludes + "%"}`)
+      .orderBy(desc(caughtMail.receivedAt))
+      .limit(1);
+    if (mail) return mail;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no mail "${subjectIncludes}" to ${to} within ${timeoutMs} ms`);
+}
+
+export function linkIn(text: string, path: string): { url: string; token: string } {
+  const match = text.match(new RegExp(`https?://[^\\s]+${path}/([A-Za-z0-9_-]{43})`));
+  if (!match) throw new Error(`no ${path} link in mail:\n${text}`);
+  return { url: match[0], token: match[1] };
+}
+
+export const uniqueEmail = (prefix: string) => `${prefix}-${Date.now().toString(36)}${Math.floor(Math.random() * 1e6)}@test.example`;
