@@ -1,0 +1,2 @@
+export * from "./cutout-config";
+export * from "./cutout";
