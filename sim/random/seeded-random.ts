@@ -17,8 +17,11 @@ const INV_2_POW_32 = 1 / 4294967296;
 export class SeededRandom {
   /** The 32-bit seed this stream was built from (what fork() derives sub-streams from). */
   readonly seed: number;
-  // State words kept as int32 in a typed array: stays unboxed and allocation-free in V8.
-  private readonly s = new Uint32Array(4);
+  // State words as int32 in plain fields (V8 keeps them unboxed; measured faster than a typed array).
+  private s0: number;
+  private s1: number;
+  private s2: number;
+  private s3: number;
 
   /**
    * @param seed any finite number; reduced to an unsigned 32-bit integer by ToUint32 (truncate,
@@ -27,34 +30,39 @@ export class SeededRandom {
   constructor(seed: number) {
     if (!Number.isFinite(seed)) throw new RangeError(`SeededRandom: seed must be finite, got ${seed}`);
     this.seed = seed >>> 0;
-    expandSeed(this.seed, this.s);
+    const w = new Uint32Array(4);
+    expandSeed(this.seed, w);
+    this.s0 = w[0] | 0;
+    this.s1 = w[1] | 0;
+    this.s2 = w[2] | 0;
+    this.s3 = w[3] | 0;
   }
 
   /** A generator with the given raw xoshiro128** state (for reference test vectors). */
   static fromState(s0: number, s1: number, s2: number, s3: number): SeededRandom {
-    const r = new SeededRandom(0);
-    r.s[0] = s0;
-    r.s[1] = s1;
-    r.s[2] = s2;
-    r.s[3] = s3;
     if ((s0 | s1 | s2 | s3) === 0) throw new RangeError("SeededRandom.fromState: all-zero state is forbidden");
+    const r = new SeededRandom(0);
+    r.s0 = s0 | 0;
+    r.s1 = s1 | 0;
+    r.s2 = s2 | 0;
+    r.s3 = s3 | 0;
     return r;
   }
 
   /** Next unsigned 32-bit integer: xoshiro128** step (Blackman & Vigna, reference next()). */
   nextUint32(): number {
-    const s = this.s;
-    const s1 = s[1];
+    const s1 = this.s1;
     const x = Math.imul(s1, 5);
     const result = Math.imul((x << 7) | (x >>> 25), 9);
     const t = s1 << 9;
-    s[2] ^= s[0];
-    s[3] ^= s1;
-    s[1] ^= s[2];
-    s[0] ^= s[3];
-    s[2] ^= t;
-    const s3 = s[3];
-    s[3] = (s3 << 11) | (s3 >>> 21);
+    let s2 = this.s2 ^ this.s0;
+    let s3 = this.s3 ^ s1;
+    this.s1 = s1 ^ s2;
+    this.s0 = this.s0 ^ s3;
+    s2 ^= t;
+    s3 = (s3 << 11) | (s3 >>> 21);
+    this.s2 = s2;
+    this.s3 = s3;
     return result >>> 0;
   }
 
@@ -63,7 +71,10 @@ export class SeededRandom {
     return this.nextUint32() * INV_2_POW_32;
   }
 
-  /** Approximately standard normal (mean 0, sd 1), from + − × ÷ only: Irwin–Hall n = 12. Consumes 12 draws. */
+  /**
+   * Approximately standard normal (mean 0, sd 1) from + − × ÷ only: Irwin–Hall sum of 12
+   * sixteen-bit uniforms (gaussian.ts). Consumes 6 draws.
+   */
   gaussian(): number {
     return irwinHallGaussian(this);
   }

@@ -9,15 +9,19 @@
  */
 import type { SeededRandom } from "../random/seeded-random";
 import type { SensorChainConfig, SensorFault, SensorReading } from "./config";
-import { leadResistanceSeenOhm, pt100Resistance, toleranceHalfWidthC, type ToleranceClass } from "./pt100";
-import { loopCurrentToTemperatureC, transmitterOutputMa, type TransmitterParams } from "./transmitter";
+import { TOLERANCE_CLASSES, leadResistanceSeenOhm, pt100Resistance, pt100Temperature } from "./pt100";
+import { clipToMeasurementRange, failureCurrentMa, isElementFailed, type TransmitterParams } from "./transmitter";
 import { AnalogInput } from "./adc";
 
 export class SensorChain {
-  private readonly tolClass: ToleranceClass;
-  private readonly tolPosition: number;
+  // Element error = tolerancePosition · (a0 + a1|t|), pre-multiplied.
+  private readonly tolA0: number;
+  private readonly tolA1: number;
   private readonly leadOhm: number;
   private readonly tx: TransmitterParams;
+  private readonly failMa: number;
+  /** 16 / (rangeHigh − rangeLow): mA per °C. */
+  private readonly maPerC: number;
   private readonly noiseSdMa: number;
   private readonly spikeProbability: number;
   private readonly spikeAmplitudeMa: number;
@@ -30,10 +34,13 @@ export class SensorChain {
 
   constructor(cfg: SensorChainConfig, rng: SeededRandom) {
     const e = cfg.element;
-    this.tolClass = e.toleranceClass;
-    this.tolPosition = e.tolerancePosition;
+    const cls = TOLERANCE_CLASSES[e.toleranceClass];
+    this.tolA0 = e.tolerancePosition * cls.a0C;
+    this.tolA1 = e.tolerancePosition * cls.a1PerC;
     this.leadOhm = leadResistanceSeenOhm(e.wiring, e.leadResistanceOhm, e.leadMismatchOhm);
     this.tx = { ...cfg.transmitter };
+    this.failMa = failureCurrentMa(this.tx);
+    this.maPerC = 16 / (this.tx.rangeHighC - this.tx.rangeLowC);
     this.noiseSdMa = cfg.noise.sdMa;
     this.spikeProbability = cfg.noise.spikeProbability;
     this.spikeAmplitudeMa = cfg.noise.spikeAmplitudeMa;
@@ -53,15 +60,20 @@ export class SensorChain {
       case "shorted": // the element is bridged; only the lead resistance the wiring leaves remains
         return this.leadOhm;
       case "none": {
-        const tIndicated = elementTempC + this.tolPosition * toleranceHalfWidthC(this.tolClass, elementTempC);
+        const tIndicated = elementTempC + this.tolA0 + this.tolA1 * Math.abs(elementTempC);
         return pt100Resistance(tIndicated) + this.leadOhm;
       }
     }
   }
 
-  /** Loop current the transmitter drives, before noise (mA). */
+  /**
+   * Loop current the transmitter drives, before noise (mA): transmitterOutputMa() of
+   * transmitter.ts with the scaling precomputed (a test checks they agree).
+   */
   transmitterMa(elementTempC: number, fault: SensorFault): number {
-    return transmitterOutputMa(this.terminalResistanceOhm(elementTempC, fault), this.tx);
+    const r = this.terminalResistanceOhm(elementTempC, fault);
+    if (isElementFailed(r)) return this.failMa;
+    return clipToMeasurementRange(4 + this.maPerC * (pt100Temperature(r) - this.tx.rangeLowC));
   }
 
   /**
@@ -84,7 +96,7 @@ export class SensorChain {
     const r = this.reading;
     r.mA = read;
     r.bad = read < this.badBelowMa || read > this.badAboveMa;
-    r.pv = loopCurrentToTemperatureC(read, this.tx.rangeLowC, this.tx.rangeHighC);
+    r.pv = this.tx.rangeLowC + (read - 4) / this.maPerC; // loopCurrentToTemperatureC, precomputed
     return r;
   }
 }

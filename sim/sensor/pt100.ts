@@ -50,21 +50,20 @@ export function pt100Temperature(rOhm: number, r0 = PT100_R0_OHM): number {
 }
 
 /**
- * Half-width (± °C) of an IEC 60751 tolerance class at t: AA 0.1 + 0.0017|t|, A 0.15 + 0.002|t|,
+ * IEC 60751 tolerance classes as ± (a0 + a1·|t|) °C: AA 0.1 + 0.0017|t|, A 0.15 + 0.002|t|,
  * B 0.3 + 0.005|t|, C 0.6 + 0.01|t| (class C as recalled, see references §10).
  */
+export const TOLERANCE_CLASSES: Readonly<Record<ToleranceClass, { a0C: number; a1PerC: number }>> = {
+  AA: { a0C: 0.1, a1PerC: 0.0017 },
+  A: { a0C: 0.15, a1PerC: 0.002 },
+  B: { a0C: 0.3, a1PerC: 0.005 },
+  C: { a0C: 0.6, a1PerC: 0.01 },
+};
+
+/** Half-width (± °C) of an IEC 60751 tolerance class at t: a0 + a1·|t|. */
 export function toleranceHalfWidthC(cls: ToleranceClass, tC: number): number {
-  const a = Math.abs(tC);
-  switch (cls) {
-    case "AA":
-      return 0.1 + 0.0017 * a;
-    case "A":
-      return 0.15 + 0.002 * a;
-    case "B":
-      return 0.3 + 0.005 * a;
-    case "C":
-      return 0.6 + 0.01 * a;
-  }
+  const c = TOLERANCE_CLASSES[cls];
+  return c.a0C + c.a1PerC * Math.abs(tC);
 }
 
 /**

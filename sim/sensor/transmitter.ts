@@ -30,10 +30,12 @@ export interface TransmitterParams {
 
 /** Linear 4–20 mA scaling of a temperature over the range, clipped at the NE 43 measurement limits. */
 export function temperatureToLoopCurrentMa(tC: number, rangeLowC: number, rangeHighC: number): number {
-  const mA = 4 + (16 * (tC - rangeLowC)) / (rangeHighC - rangeLowC);
-  if (mA < NE43_MEASUREMENT_MIN_MA) return NE43_MEASUREMENT_MIN_MA;
-  if (mA > NE43_MEASUREMENT_MAX_MA) return NE43_MEASUREMENT_MAX_MA;
-  return mA;
+  return clipToMeasurementRange(4 + (16 * (tC - rangeLowC)) / (rangeHighC - rangeLowC));
+}
+
+/** Clip a loop current to the NE 43 measurement range 3.8…20.5 mA. */
+export function clipToMeasurementRange(mA: number): number {
+  return mA < 3.8 ? 3.8 : mA > 20.5 ? 20.5 : mA; // = NE43_MEASUREMENT_MIN_MA / _MAX_MA (literal for the hot path)
 }
 
 /** The configured failure current. */

@@ -143,3 +143,25 @@ describe("gaussian() (Irwin–Hall, n = 12)", () => {
     expect(chain).not.toMatch(/Math\.(log|exp|sin|cos|tan|pow|random)\b/);
   });
 });
+
+describe("gaussian() construction", () => {
+  it("equals (Σ of the 12 sixteen-bit halves of 6 draws + 6)/2¹⁶ − 6, computed here independently", () => {
+    const a = new SeededRandom(31337);
+    const b = new SeededRandom(31337);
+    for (let k = 0; k < 10_000; k++) {
+      let sum = 0;
+      for (let j = 0; j < 6; j++) {
+        const x = b.nextUint32();
+        sum += Math.floor(x / 65536) + (x % 65536);
+      }
+      expect(a.gaussian()).toBe((sum + 6) / 65536 - 6);
+    }
+  });
+
+  it("the mean correction is exact: the all-zero and all-max halves give −6 + 6/2¹⁶ and +6 − 6/2¹⁶ (symmetric)", async () => {
+    const { irwinHallGaussian } = await import("../../../sim/random");
+    expect(irwinHallGaussian({ nextUint32: () => 0 })).toBe(-6 + 6 / 65536);
+    expect(irwinHallGaussian({ nextUint32: () => 0xffffffff })).toBe(6 - 6 / 65536);
+    expect(irwinHallGaussian({ nextUint32: () => 0x7fff8000 })).toBe(0); // halves 32767 and 32768 sum to 65535 each
+  });
+});

@@ -91,6 +91,15 @@ describe("sensor chain measurement", () => {
     expect(hi.pv).toBeCloseTo(206.25, 5);
   });
 
+  it("the chain's precomputed transmitter agrees with transmitterOutputMa() of transmitter.ts", async () => {
+    const { transmitterOutputMa } = await import("../../../sim/sensor/transmitter");
+    const cfg = sensorChainSchema.parse({ element: { wiring: "2-wire", toleranceClass: "B", tolerancePosition: 0.4 }, transmitter: { rangeLowC: -50, rangeHighC: 250 } });
+    const c = new SensorChain(cfg, new SeededRandom(1));
+    for (let t = -60; t <= 300; t += 3.3) {
+      expect(c.transmitterMa(t, "none")).toBeCloseTo(transmitterOutputMa(c.terminalResistanceOhm(t, "none"), cfg.transmitter), 10);
+    }
+  });
+
   it("readings are quantised to the ADC step", () => {
     const c = chain({ noise: { sdMa: 0 }, analogInput: { bits: 8, rangeLowMa: 0, rangeHighMa: 24 }, element: { wiring: "4-wire" } });
     const step = 24 / 255;
