@@ -3,7 +3,7 @@
 // into a private header here (any inbound copy is dropped), so a client cannot choose its own.
 // With --mail-catcher it also runs the local SMTP catcher; with --mailbox it enables the admins'
 // mailbox page. Both are for local and demo installations.
-import { loadEnvConfig } from "@next/env";
+import nextEnv from "@next/env";
 import { createServer } from "node:http";
 import next from "next";
 import { ensureLocalDatabase } from "./db/local-postgres";
@@ -13,7 +13,7 @@ const PEER_HEADER = "x-loopwright-peer"; // read by app/_lib/client-address.ts
 
 async function main() {
   const root = process.cwd();
-  loadEnvConfig(root, false);
+  nextEnv.loadEnvConfig(root, false);
   const args = new Set(process.argv.slice(2));
   const port = Number(process.env.PORT ?? 3000);
   const hostname = process.env.HOST ?? "127.0.0.1";

@@ -69,6 +69,11 @@ async function main() {
     ensureChromium();
 
     const env: NodeJS.ProcessEnv = { ...process.env, DATABASE_URL: testUrl, NEXT_TELEMETRY_DISABLED: "1" };
+    if (process.env.LOOPWRIGHT_SKIP_TYPECHECK !== "1") {
+      console.log("[tests] type-checking the project (tsc --noEmit)");
+      if ((await run("npx", ["tsc", "--noEmit"], env)) !== 0) throw new Error("type errors: see above");
+    }
+    env.LOOPWRIGHT_TYPECHECKED = "1";
     if ((await run("npx", ["next", "build"], env)) !== 0) throw new Error("next build failed");
 
     const [port, smtpPort] = [await freePort(), await freePort()];

@@ -30,14 +30,14 @@ export function ActionForm({
 export function FormOutcome({ state }: { state: ActionResult }) {
   if (!state.ok) {
     return (
-      <p role="alert" className="rounded-sm border border-alarm/40 bg-alarm-soft px-3 py-2 text-sm text-alarm">
+      <p role="alert" data-testid="form-error" className="rounded-sm border border-alarm/40 bg-alarm-soft px-3 py-2 text-sm text-alarm">
         {state.error}
       </p>
     );
   }
   if (state.message) {
     return (
-      <p role="status" className="rounded-sm border border-ok/40 bg-paper-raised px-3 py-2 text-sm text-ok">
+      <p role="status" data-testid="form-status" className="rounded-sm border border-ok/40 bg-paper-raised px-3 py-2 text-sm text-ok">
         {state.message}
       </p>
     );
