@@ -7,8 +7,8 @@ import { FormOutcome, SubmitButton } from "@/components/forms/ActionForm";
 type Action = (previous: ActionResult, form: FormData) => Promise<ActionResult>;
 
 interface RosterData {
-  members: { userId: string; displayName: string; email: string; role: "trainee" | "instructor"; status: string; joinedAt: string }[];
-  pending: { id: string; email: string; role: string; expiresAt: string }[];
+  members: { userId: string; displayName: string; email: string; role: "trainee" | "instructor"; status: string; joinedAt: string | Date }[];
+  pending: { id: string; email: string; role: string; expiresAt: string | Date }[];
 }
 
 const fetchJson = async (url: string) => {
@@ -20,9 +20,9 @@ const fetchJson = async (url: string) => {
 const dateFmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium" });
 
 /** Roster table (fetched with SWR from the route handler) with the instructor's invite form. */
-export function CohortRoster({ cohortId, invite, remove }: { cohortId: string; invite: Action; remove: Action }) {
+export function CohortRoster({ cohortId, initial, invite, remove }: { cohortId: string; initial?: RosterData; invite: Action; remove: Action }) {
   const key = `/api/cohorts/${cohortId}/roster`;
-  const { data, error, mutate } = useSWR<RosterData>(key, fetchJson);
+  const { data, error, mutate } = useSWR<RosterData>(key, fetchJson, { fallbackData: initial });
   const [inviteState, inviteAction] = useActionState(invite, { ok: true } as ActionResult);
   const [removeState, removeAction] = useActionState(remove, { ok: true } as ActionResult);
   useEffect(() => {

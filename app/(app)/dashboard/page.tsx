@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import type { SignedInUser } from "@/app/_lib/auth";
 import { guardPage } from "@/app/_lib/guard";
-import { cohortsFor, organizationName, organizationUsers } from "@/db/queries";
+import { cohortsFor, organizationName, organizationUsers, roster } from "@/db/queries";
 import { CohortRoster } from "@/components/cohorts/CohortRoster";
 import { inviteTrainee, removeTrainee } from "../cohorts/[cohortId]/actions";
 
@@ -59,12 +59,13 @@ async function AdminPanel({ user, cohorts }: { user: SignedInUser; cohorts: Coho
   );
 }
 
-function InstructorPanel({ cohorts }: { cohorts: CohortRow[] }) {
+async function InstructorPanel({ cohorts }: { cohorts: CohortRow[] }) {
   const teaching = cohorts.filter((c) => c.myRole === "instructor");
   if (teaching.length === 0) return <p className="text-sm text-ink-soft">You do not teach a cohort yet. An administrator adds you to one.</p>;
+  const rosters = await Promise.all(teaching.map((c) => roster(c.id)));
   return (
     <>
-      {teaching.map((c) => (
+      {teaching.map((c, i) => (
         <section key={c.id} className="rounded-sm border border-rule bg-paper-raised p-5">
           <h2 className="mb-1 text-base font-semibold">
             <Link href={`/cohorts/${c.id}`} className="no-underline">
@@ -74,7 +75,7 @@ function InstructorPanel({ cohorts }: { cohorts: CohortRow[] }) {
           <p className="num mb-4 text-xs text-ink-faint">
             {c.traineeCount} trainees · times in {c.timeZone}
           </p>
-          <CohortRoster cohortId={c.id} invite={inviteTrainee} remove={removeTrainee} />
+          <CohortRoster cohortId={c.id} initial={rosters[i]} invite={inviteTrainee} remove={removeTrainee} />
         </section>
       ))}
     </>

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { guardPage } from "@/app/_lib/guard";
-import { cohortById } from "@/db/queries";
+import { cohortById, roster } from "@/db/queries";
 import { CohortRoster } from "@/components/cohorts/CohortRoster";
 import { inviteTrainee, removeTrainee } from "./actions";
 
@@ -14,7 +14,7 @@ export default async function CohortPage({ params }: { params: Promise<{ cohortI
     <section>
       <p className="text-xs uppercase tracking-wide text-ink-faint">Cohort · times in {cohort.timeZone}</p>
       <h1 className="mb-6 text-xl font-semibold">{cohort.name}</h1>
-      <CohortRoster cohortId={cohortId} invite={inviteTrainee} remove={removeTrainee} />
+      <CohortRoster cohortId={cohortId} initial={await roster(cohortId)} invite={inviteTrainee} remove={removeTrainee} />
     </section>
   );
 }
