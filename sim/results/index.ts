@@ -1,0 +1,11 @@
+export { computeWindowResults } from "./window";
+export type { WindowResultsInput, WindowResults, WindowKind } from "./window";
+export { stepMetrics, firstCrossing } from "./step-metrics";
+export type { StepMetrics } from "./step-metrics";
+export { errorIntegrals } from "./integrals";
+export type { ErrorIntegrals } from "./integrals";
+export { disturbanceMetrics } from "./disturbance";
+export type { DisturbanceMetrics } from "./disturbance";
+export { outputTravel, heaterEnergyKWh, timeAbove } from "./effort";
+export { bandHalfWidthC, lastEntryIntoBand } from "./band";
+export { windowIndices } from "./window-slice";
