@@ -1,5 +1,4 @@
 import { describe, expect, it } from "vitest";
-import { pvFilterAlpha, PvFilter } from "../../../sim/control";
 import { block, cfg, firstOrderPlant } from "./helpers";
 
 /** Run a block in closed loop with a first-order plant; returns the OUT history. */
@@ -173,73 +172,6 @@ describe("bad PV (NAMUR NE 43 failure level reported by the sensor chain)", () =
   });
 });
 
-describe("on/off control (band centred on SP: on below SP − H/2, off above SP + H/2; common practice)", () => {
-  it("switches exactly at SP ± hysteresis/2 and holds in between", () => {
-    const b = block({ kind: "onoff", hysteresisC: 2, outOnPct: 100, outOffPct: 0 }, { out: 0, sp: 50, pv: 50 });
-    const seq: [number, number][] = [
-      [50, 0],
-      [49.1, 0], // inside the band: stays off
-      [48.9, 100], // below 49: on
-      [50.5, 100], // inside: stays on
-      [51.0, 100], // at the edge: not yet
-      [51.01, 0], // above 51: off
-      [49.5, 0],
-    ];
-    for (const [pv, want] of seq) expect(b.update(pv, false)).toBe(want);
-    expect(b.state.p).toBe(0);
-  });
-
-  it("direct action mirrors it, and outputs respect the limits", () => {
-    const b = block({ kind: "onoff", action: "direct", hysteresisC: 1, outOnPct: 100, outOffPct: 0, outMaxPct: 80 }, { out: 0, sp: 10, pv: 10 });
-    expect(b.update(10.6, false)).toBe(80);
-    expect(b.update(9.6, false)).toBe(80);
-    expect(b.update(9.4, false)).toBe(0);
-  });
-
-  it("in closed loop on a first-order plant the PV cycles within the hysteresis band plus the overshoot of one sample", () => {
-    const plant = firstOrderPlant(1, 20, 0.1, 30); // 100 % → 100 °C steady state
-    const b = block({ kind: "onoff", hysteresisC: 2 }, { out: 0, sp: 60, pv: 30 });
-    let lo = Infinity;
-    let hi = -Infinity;
-    let switches = 0;
-    let prev = 0;
-    for (let k = 0; k < 6000; k++) {
-      const u = b.update(plant.y, false);
-      if (u !== prev) switches++;
-      prev = u;
-      plant.step(u);
-      if (k > 1000) {
-        lo = Math.min(lo, plant.y);
-        hi = Math.max(hi, plant.y);
-      }
-    }
-    // Per sample the PV moves at most (1 − e^(−h/τ))·|K·u − y| ≈ 0.005·70 = 0.35 °C beyond the switch point.
-    expect(lo).toBeGreaterThan(59 - 0.4);
-    expect(hi).toBeLessThan(61 + 0.4);
-    expect(hi - lo).toBeGreaterThan(1.9);
-    expect(switches).toBeGreaterThan(20);
-  });
-});
-
-describe("PV filter (exact discretisation of a first-order lag)", () => {
-  it("α = 1 − e^(−h/τ); 0 = off", () => {
-    expect(pvFilterAlpha(2, 0.1)).toBeCloseTo(1 - Math.exp(-0.05), 15);
-    expect(pvFilterAlpha(0, 0.1)).toBe(1);
-  });
-
-  it("a unit step gives 1 − e^(−t/τ) at every sample (analytic first-order step response)", () => {
-    const f = new PvFilter(3, 0.1, 0);
-    for (let k = 1; k <= 100; k++) expect(f.update(1)).toBeCloseTo(1 - Math.exp((-k * 0.1) / 3), 12);
-  });
-
-  it("the block filters PV before the PID: pvFiltered lags the measured PV", () => {
-    const b = block({ kc: 1, ti: 0, pvFilterTauS: 1, sampleTimeS: 0.1 }, { out: 50, sp: 50, pv: 50 });
-    b.update(50, false);
-    b.update(60, false);
-    expect(b.state.pvFiltered).toBeCloseTo(50 + 10 * (1 - Math.exp(-0.1)), 12);
-  });
-});
-
 describe("closed loop: PI with b = 0 on a first-order plant is a second-order system (Ogata §5-3)", () => {
   it("overshoot and peak time match Mp = 16.3 %, tp = π/ωd for ζ = 0.5, ωn = 0.5 rad/s", () => {
     // Plant K/(τs+1), u = −Kc·y + (Kc/Ti)∫(r − y): Y/R = KKc/(τTi s² + Ti(1 + KKc)s + KKc), no zero.
@@ -262,5 +194,73 @@ describe("closed loop: PI with b = 0 on a first-order plant is a second-order sy
     expect(Math.abs(mp - 16.3034)).toBeLessThan(0.15); // Ogata Mp = 100·exp(−ζπ/√(1−ζ²)); references §9
     const tp = Math.PI / (0.5 * Math.sqrt(1 - 0.25)); // 7.2552 s
     expect(Math.abs(tPeak - tp)).toBeLessThan(0.05);
+  });
+});
+
+describe("anti-windup equilibria (derived from the discrete law, A&H 1995 §3.5)", () => {
+  it("back-calculation settles where (Kc h/Ti)e = (h/Tt)(v − u): I → OUTmax − Kc·e + Kc·e·Tt/Ti", () => {
+    // PI, Kc = 2, Ti = Tt = 20 s, e = 80 °C: v − u = Kc·e·Tt/Ti = 160, P = 160, so I → 100 + 160 − 160 = 100.
+    const b = block({ kc: 2, ti: 20, sampleTimeS: 0.1, antiWindup: "back-calculation" }, { out: 0, sp: 100, pv: 20 });
+    for (let k = 0; k < 6000; k++) b.update(20, false);
+    expect(b.state.out).toBe(100);
+    expect(b.state.p).toBeCloseTo(160, 12);
+    expect(b.state.i).toBeCloseTo(100, 3);
+  });
+
+  it("conditional integration freezes the integral while the output is limited and the error pushes further", () => {
+    // b = 0 so P = −Kc·PV carries no SP: with SP 100 and PV 20, P = −20 and I starts at 120 (OUT 100).
+    const b = block({ kc: 1, ti: 20, setpointWeightB: 0, sampleTimeS: 0.1, antiWindup: "conditional" }, { out: 100, sp: 100, pv: 20 });
+    b.update(20, false); // v = 100 = OUTmax: not yet limited, integrates once (+Kc·h/Ti·e = 0.005·80 = 0.4)
+    b.update(20, false); // now v > OUTmax: frozen from here on
+    const frozen = b.state.i;
+    expect(frozen).toBeCloseTo(120.4, 12);
+    for (let k = 0; k < 500; k++) b.update(20, false);
+    expect(b.state.i).toBe(frozen);
+    expect(b.state.out).toBe(100);
+    // SP below PV while OUT is still limited high: this error drives OUT out of the limit, so it integrates.
+    b.setSetpoint(10);
+    const a = b.state.i;
+    b.update(20, false);
+    b.update(20, false);
+    expect(b.state.i - a).toBeCloseTo(((1 * 0.1) / 20) * -10, 12);
+  });
+});
+
+describe("mode and retune details", () => {
+  it("setManualOutput is ignored in auto", () => {
+    const b = block({ kc: 1, ti: 0 }, { out: 30, sp: 50, pv: 50 });
+    b.update(50, false);
+    b.setManualOutput(80);
+    expect(b.update(50, false)).toBeCloseTo(30, 12);
+  });
+
+  it("retune to a new sample time changes the integral slope per sample (Kc·h/Ti)", () => {
+    const b = block({ kc: 2, ti: 10, sampleTimeS: 0.1, outMaxPct: 1000 }, { out: 0, sp: 51, pv: 50 });
+    b.update(50, false);
+    b.retune(cfg({ kc: 2, ti: 10, sampleTimeS: 1, outMaxPct: 1000 }));
+    const u0 = b.update(50, false);
+    const u1 = b.update(50, false);
+    expect(u1 - u0).toBeCloseTo(0.2, 12); // 2·1/10·1
+  });
+
+  it("retune PID → on/off → PID keeps OUT continuous where it can", () => {
+    const b = block({ kc: 2, ti: 30 }, { out: 70, sp: 60, pv: 60 });
+    b.update(60, false);
+    b.retune(cfg({ kind: "onoff", hysteresisC: 2 }));
+    expect(b.update(60, false)).toBe(100); // inside the band: keeps the state implied by 70 % (on)
+    expect(b.update(62, false)).toBe(0);
+    b.retune(cfg({ kc: 2, ti: 30 }));
+    expect(b.update(62, false)).toBeCloseTo(0, 12); // bumpless from 0 %
+    expect(b.state.p).toBeCloseTo(-4, 12);
+  });
+
+  it("the block is deterministic: the same PV sequence gives bit-identical OUT", () => {
+    const run = () => {
+      const b = block({ kc: 3, ti: 45, td: 8, pvFilterTauS: 1.5, outRateLimitPctPerS: 4 }, { out: 10, sp: 70, pv: 40 });
+      const outs: number[] = [];
+      for (let k = 0; k < 500; k++) outs.push(b.update(40 + 0.05 * k + 0.2 * Math.sin(k), false));
+      return outs;
+    };
+    expect(run()).toEqual(run());
   });
 });
