@@ -36,8 +36,12 @@ export const enclosureParamsSchema = z
     wallAreaM2: positive,
     /** overall air-to-ambient U-value of the wall, W/(m²K) */
     wallUValueWPerM2K: positive,
-    /** outer film coefficient (convection + radiation) at nominal conditions, W/(m²K); splits U into
-     * inner and outer parts so the wall node sits at the outer skin. Must exceed the U-value. */
+    /** inner film coefficient between the circulated air and the inner skin, W/(m²K). The wall
+     * node is the inner skin with shelves and frame; the rest of 1/U (insulation + outer film)
+     * connects it to ambient. */
+    innerFilmCoefficientWPerM2K: positive.default(10),
+    /** outer film coefficient (convection + radiation) at nominal conditions, W/(m²K); only the
+     * nonlinear-loss mode uses it, to split the remaining resistance into insulation and outer film */
     outerFilmCoefficientWPerM2K: positive.default(8),
     /** lumped heat capacity of the walls (shell, insulation, shelves), J/K */
     wallHeatCapacityJPerK: positive,
@@ -64,9 +68,9 @@ export const enclosureParamsSchema = z
     nonlinear: nonlinearLossSchema.default({ convectionCoefficient: 1.32, emissivity: 0.9 }),
   })
   .strict()
-  .refine((p) => p.outerFilmCoefficientWPerM2K > p.wallUValueWPerM2K, {
-    message: "outerFilmCoefficientWPerM2K must exceed wallUValueWPerM2K (U includes the outer film)",
-    path: ["outerFilmCoefficientWPerM2K"],
+  .refine((p) => 1 / p.wallUValueWPerM2K > 1 / p.innerFilmCoefficientWPerM2K + 1 / p.outerFilmCoefficientWPerM2K, {
+    message: "1/U must exceed 1/h_inner + 1/h_outer (U includes both films)",
+    path: ["wallUValueWPerM2K"],
   });
 
 export type EnclosureParams = z.output<typeof enclosureParamsSchema>;

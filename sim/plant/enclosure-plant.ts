@@ -9,7 +9,7 @@ import type { EnclosureParams } from "./enclosure-params";
 import { ModalStepper } from "./modal-stepper";
 import { enclosureDerivative, OdeStepper } from "./ode-stepper";
 import { Rk4Stepper } from "./rk4-stepper";
-import { outerLossW } from "./nonlinear-losses";
+import { wallLossThroughInsulationW } from "./nonlinear-losses";
 import { solveLinear } from "./matrix-exponential";
 import { buildEnclosureNetwork, conductanceMatrix, nominalConditions, type ThermalNetwork } from "./thermal-network";
 import type { InitialTemperatures, Plant } from "./plant";
@@ -91,9 +91,11 @@ export class EnclosurePlant implements Plant {
 
   private wallLoss(): ((t: number) => number) | null {
     if (this.params.lossModel !== "nonlinear") return null;
-    const p = { ...this.params.nonlinear, areaM2: this.params.wallAreaM2 };
+    const pr = this.params;
+    const p = { ...pr.nonlinear, areaM2: pr.wallAreaM2 };
+    const rIns = (1 / pr.wallUValueWPerM2K - 1 / pr.innerFilmCoefficientWPerM2K - 1 / pr.outerFilmCoefficientWPerM2K) / pr.wallAreaM2;
     const amb = this.cond.ambientC;
-    return (tw) => outerLossW(p, tw, amb);
+    return (tw) => wallLossThroughInsulationW(p, rIns, tw, amb);
   }
 
   /** Re-derives network and stepper; node temperatures by node id (new nodes take `newNode`). */

@@ -23,3 +23,32 @@ export function outerLossW(p: NonlinearLossParams, tWallC: number, tAmbC: number
   const rad = p.emissivity * STEFAN_BOLTZMANN_W_PER_M2_K4 * (tw * tw * tw * tw - ta * ta * ta * ta);
   return p.areaM2 * (conv + rad);
 }
+
+/**
+ * Loss from the inner wall node at tWallC through the insulation (resistance rInsKPerW) and the
+ * nonlinear outer film: the massless skin temperature T_s solves (T_w − T_s)/R = Q_out(T_s).
+ * Method: safeguarded Newton on that monotone scalar equation (bisection fallback inside the
+ * bracket between T_amb and T_w).
+ */
+export function wallLossThroughInsulationW(p: NonlinearLossParams, rInsKPerW: number, tWallC: number, tAmbC: number): number {
+  let lo = Math.min(tWallC, tAmbC);
+  let hi = Math.max(tWallC, tAmbC);
+  if (hi - lo < 1e-12) return 0;
+  const f = (ts: number) => (tWallC - ts) / rInsKPerW - outerLossW(p, ts, tAmbC);
+  let ts = tAmbC + (tWallC - tAmbC) * 0.2;
+  for (let it = 0; it < 60; it++) {
+    const fv = f(ts);
+    if (fv > 0) lo = ts;
+    else hi = ts;
+    const d = 1e-6 * Math.max(1, Math.abs(ts));
+    const df = (f(ts + d) - fv) / d;
+    let next = ts - fv / df;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - ts) < 1e-11 * Math.max(1, Math.abs(ts))) {
+      ts = next;
+      break;
+    }
+    ts = next;
+  }
+  return (tWallC - ts) / rInsKPerW;
+}

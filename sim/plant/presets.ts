@@ -23,18 +23,19 @@ const benchtop: EnclosureParamsInput = {
   volumeM3: 0.12, // 0.5 × 0.5 × 0.48 m inside
   wallAreaM2: 1.5, // six faces of the inner box
   wallUValueWPerM2K: 0.8, // ≈ 40 mm mineral wool between steel skins
+  innerFilmCoefficientWPerM2K: 12, // circulation fan inside
   outerFilmCoefficientWPerM2K: 9, // still-air convection + radiation on painted steel
-  wallHeatCapacityJPerK: 15000, // two 1 mm steel skins (≈ 24 kg × 480 J/(kg K)) plus shelves and frame
+  wallHeatCapacityJPerK: 12000, // 1.2 mm inner steel skin (≈ 14 kg × 480 J/(kg K)), shelves, frame, part of the wool
   heaterRatingW: 800,
   nominalVoltageV: 230,
-  heaterHeatCapacityJPerK: 220, // ≈ 0.45 kg sheathed finned element
-  heaterTimeConstantS: 40,
+  heaterHeatCapacityJPerK: 450, // ≈ 0.9 kg heavy tubular sheathed element
+  heaterTimeConstantS: 90,
   inletAirflowM3PerH: 12, // small purge fan for solvent vapour
   doorOpenAirflowM3PerH: 150,
   ambientC: 21,
   pressurePa: 101325,
   contents: { massKg: 4, specificHeatJPerKgK: 900, airCouplingWPerK: 8 }, // aluminium trays
-  sensorTimeConstantS: 8, // 6 mm sheathed Pt100 in moving air
+  sensorTimeConstantS: 15, // 6 mm sheathed Pt100 in a protection tube
   lossModel: "linear",
 };
 
@@ -44,18 +45,19 @@ const walkIn: EnclosureParamsInput = {
   volumeM3: 12, // 2.5 × 2.0 × 2.4 m inside
   wallAreaM2: 30,
   wallUValueWPerM2K: 0.45, // 80–100 mm PIR sandwich panels
+  innerFilmCoefficientWPerM2K: 8,
   outerFilmCoefficientWPerM2K: 8,
   wallHeatCapacityJPerK: 400000, // panel skins ≈ 280 kg steel, racks and the floor slab's active layer
   heaterRatingW: 9000,
   nominalVoltageV: 400,
-  heaterHeatCapacityJPerK: 3000, // ≈ 6 kg finned air heater battery
-  heaterTimeConstantS: 60,
+  heaterHeatCapacityJPerK: 6000, // ≈ 12 kg finned air heater battery
+  heaterTimeConstantS: 120,
   inletAirflowM3PerH: 250, // moisture exhaust
   doorOpenAirflowM3PerH: 2500,
   ambientC: 16,
   pressurePa: 101325,
   contents: { massKg: 300, specificHeatJPerKgK: 1700, airCouplingWPerK: 120 }, // timber on racks
-  sensorTimeConstantS: 20, // Pt100 in a thermowell
+  sensorTimeConstantS: 40, // Pt100 in a thermowell
   lossModel: "linear",
 };
 
@@ -63,7 +65,7 @@ const relayPractice: EnclosureParamsInput = {
   ...benchtop,
   name: "Bench cabinet C-4 (noisy-sensor variant for relay-test practice)",
   contents: { massKg: 2, specificHeatJPerKgK: 900, airCouplingWPerK: 6 },
-  sensorTimeConstantS: 3, // bare thin-film element: fast, and it picks up noise
+  sensorTimeConstantS: 4, // bare thin-film element: fast, and it picks up noise
 };
 
 export const PLANT_PRESETS: readonly PlantPreset[] = [

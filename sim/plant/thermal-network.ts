@@ -62,11 +62,10 @@ export function buildEnclosureNetwork(
   capacity[1] = airDensity(p.ambientC, p.pressurePa) * p.volumeM3 * AIR_SPECIFIC_HEAT_J_PER_KG_K;
   capacity[2] = p.wallHeatCapacityJPerK;
   link(0, 1, p.heaterHeatCapacityJPerK / p.heaterTimeConstantS);
-  // Split 1/U = 1/h_inner_path + 1/h_out so the series air→wall→ambient conductance is U·A.
+  // 1/U = 1/h_in + (insulation + outer film): the series air→wall→ambient conductance is U·A.
   const a = p.wallAreaM2;
-  const innerPath = a / (1 / p.wallUValueWPerM2K - 1 / p.outerFilmCoefficientWPerM2K);
-  link(1, 2, innerPath);
-  const wallOuter = opts.linearOuterFilm ? p.outerFilmCoefficientWPerM2K * a : 0;
+  link(1, 2, p.innerFilmCoefficientWPerM2K * a);
+  const wallOuter = opts.linearOuterFilm ? a / (1 / p.wallUValueWPerM2K - 1 / p.innerFilmCoefficientWPerM2K) : 0;
   ambientConductance[2] = wallOuter;
   const flow = p.inletAirflowM3PerH * (1 - clamp(c.inletBlockagePercent, 0, 100) / 100) + Math.max(0, c.doorAirflowM3PerH);
   const vent = ventilationConductance(flow, c.ambientC, p.pressurePa);
