@@ -100,6 +100,36 @@ describe("sensor chain measurement", () => {
     }
   });
 
+  it("a range reaching below 0 °C: −50…150 °C reads −30 °C correctly (inverse CVD below R0)", () => {
+    const c = chain({ ...quiet, element: { wiring: "4-wire" }, transmitter: { rangeLowC: -50, rangeHighC: 150 } });
+    expect(c.measure(-30, "none", 0).pv).toBeCloseTo(-30, 6);
+    expect(c.measure(-30, "none", 0).mA).toBeCloseTo(4 + (16 * 20) / 200, 7);
+  });
+
+  it("PV noise in °C is the mA noise times span/16 (0.004 mA on 0–200 °C → 0.05 °C)", () => {
+    const c = chain({ noise: { sdMa: 0.004 }, analogInput: { bits: 24 }, element: { wiring: "4-wire" } }, 3);
+    const n = 40_000;
+    let s1 = 0;
+    let s2 = 0;
+    for (let k = 0; k < n; k++) {
+      const pv = c.measure(120, "none", 0).pv - 120;
+      s1 += pv;
+      s2 += pv * pv;
+    }
+    const sd = Math.sqrt(s2 / n - (s1 / n) ** 2);
+    expect(Math.abs(sd / 0.05 - 1)).toBeLessThan(0.03);
+  });
+
+  it("a 12-bit input quantises PV in steps of 24/4095 mA = 0.0733 °C on 0–200 °C", () => {
+    const c = chain({ noise: { sdMa: 0 }, analogInput: { bits: 12 }, element: { wiring: "4-wire" } });
+    const seen = new Set<number>();
+    for (let t = 100; t < 101; t += 0.001) seen.add(c.measure(t, "none", 0).pv);
+    const levels = [...seen].sort((a, b) => a - b);
+    for (let k = 1; k < levels.length; k++) expect(levels[k] - levels[k - 1]).toBeCloseTo(((24 / 4095) * 200) / 16, 9);
+    expect(levels.length).toBeGreaterThanOrEqual(13); // 1 °C / 0.0733 °C ≈ 13.6
+    expect(levels.length).toBeLessThanOrEqual(15);
+  });
+
   it("readings are quantised to the ADC step", () => {
     const c = chain({ noise: { sdMa: 0 }, analogInput: { bits: 8, rangeLowMa: 0, rangeHighMa: 24 }, element: { wiring: "4-wire" } });
     const step = 24 / 255;

@@ -33,6 +33,13 @@ describe("Pt100 Callendar–Van Dusen (IEC 60751)", () => {
     expect(pt100Resistance(850)).toBeCloseTo(390.48, 2);
   });
 
+  it("below 0 °C the C term applies: R(−100 °C) = 60.26 Ω (IEC 60751 table value from memory; CVD gives 60.2558)", () => {
+    expect(pt100Resistance(-100)).toBeCloseTo(60.2558, 4);
+    expect(Math.abs(pt100Resistance(-100) - 60.26)).toBeLessThan(0.005);
+    // Without the C term the value would be 60.3395 Ω: the quartic term matters (0.08 Ω ≈ 0.2 °C).
+    expect(100 * (1 - 0.39083 - 0.005775) - pt100Resistance(-100)).toBeCloseTo(0.08366, 5);
+  });
+
   it("mean coefficient α = (R100 − R0)/(100 R0) ≈ 0.00385 /°C (IEC 60751; exactly A + 100B = 0.00385055)", () => {
     const alpha = (pt100Resistance(100) - 100) / (100 * 100);
     expect(Math.abs(alpha - 0.00385)).toBeLessThan(1e-6);
