@@ -90,7 +90,10 @@ export class ControllerBlock {
     if (st.mode === "manual") {
       if (cfg.spTrackInManual && !pvBad) st.sp = y;
       u = this.manualOut;
-      if (this.pid && !pvBad) this.pid.track(st.sp, y, u);
+      if (this.pid) {
+        if (pvBad) this.pid.holdAt(u);
+        else this.pid.track(st.sp, y, u);
+      }
       if (this.relay) this.relay.on = u > (cfg.outOnPct + cfg.outOffPct) / 2;
       this.reinit = true;
     } else if (pvBad) {
