@@ -3,6 +3,7 @@ import { useActionState, useEffect } from "react";
 import useSWR from "swr";
 import type { ActionResult } from "@/app/_lib/action";
 import { FormOutcome, SubmitButton } from "@/components/forms/ActionForm";
+import { TableHead } from "@/components/tables/TableHead";
 
 type Action = (previous: ActionResult, form: FormData) => Promise<ActionResult>;
 
@@ -46,15 +47,7 @@ export function CohortRoster({ cohortId, initial, invite, remove }: { cohortId: 
       {error ? <p role="alert" className="text-sm text-alarm">Roster unavailable: {String(error.message)}</p> : null}
       <FormOutcome state={removeState} />
       <table className="w-full border-collapse text-sm">
-        <thead>
-          <tr className="border-b border-rule-strong text-left text-xs uppercase tracking-wide text-ink-faint">
-            <th className="py-2 font-medium">Name</th>
-            <th className="py-2 font-medium">E-mail</th>
-            <th className="py-2 font-medium">Role</th>
-            <th className="py-2 font-medium">Joined</th>
-            <th className="py-2" />
-          </tr>
-        </thead>
+        <TableHead columns={["Name", "E-mail", "Role", "Joined", ""]} />
         <tbody>
           {data?.members.map((m) => (
             <tr key={m.userId} className="border-b border-rule" data-testid="roster-row">

@@ -4,6 +4,7 @@ import { cohortsFor, organizationUsers } from "@/db/queries";
 import { ActionForm } from "@/components/forms/ActionForm";
 import { Field, SelectField } from "@/components/forms/Field";
 import { UserStatusButton } from "@/components/forms/UserStatusButton";
+import { TableHead } from "@/components/tables/TableHead";
 import { inviteUser, setActive } from "../actions";
 
 export const metadata: Metadata = { title: "Users" };
@@ -16,15 +17,7 @@ export default async function AdminUsersPage() {
       <section>
         <h1 className="mb-4 text-xl font-semibold">Users</h1>
         <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule-strong text-left text-xs uppercase tracking-wide text-ink-faint">
-              <th className="py-2 font-medium">Name</th>
-              <th className="py-2 font-medium">E-mail</th>
-              <th className="py-2 font-medium">Role</th>
-              <th className="py-2 font-medium">Status</th>
-              <th />
-            </tr>
-          </thead>
+          <TableHead columns={["Name", "E-mail", "Role", "Status", ""]} />
           <tbody>
             {people.map((p) => (
               <tr key={p.id} className="border-b border-rule" data-testid="user-row" data-email={p.email}>
