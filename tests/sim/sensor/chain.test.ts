@@ -193,15 +193,12 @@ describe("sensor chain measurement", () => {
     for (let k = 0; k < 20; k++) expect(a.measure(100, "none", 0).mA).toBe(b.measure(100, "none", 0).mA);
   });
 
-  it("measure() is fast: well under 1 µs per call (generous bound for CI; budget is < 100 ns)", () => {
-    const c = chain({ noise: { sdMa: 0.01, spikeProbability: 0.001, spikeAmplitudeMa: 1 } });
-    let acc = 0;
-    for (let k = 0; k < 20_000; k++) acc += c.measure(80 + (k % 7), "none", 0).pv; // warm-up
-    const n = 200_000;
-    const t0 = performance.now();
-    for (let k = 0; k < n; k++) acc += c.measure(80 + (k % 7) * 0.1, "none", 0).pv;
-    const nsPerCall = ((performance.now() - t0) * 1e6) / n;
-    expect(acc).toBeGreaterThan(0);
-    expect(nsPerCall).toBeLessThan(1000);
+  it("measure() reuses one result object (allocation-free hot path; callers copy the fields)", () => {
+    const c = chain({ noise: { sdMa: 0.01 } });
+    const a = c.measure(80, "none", 0);
+    const pv = a.pv;
+    const b = c.measure(90, "none", 0);
+    expect(b).toBe(a);
+    expect(b.pv).not.toBe(pv);
   });
 });
