@@ -2,7 +2,7 @@
  * The controller block the runner calls once per sample: PV filter → (PID or on/off) → output
  * limits, with auto/manual, setpoint tracking and bad-PV handling around it.
  *
- * Bumpless transfer (Åström & Hägglund 1995, §3.5 "bumpless parameter changes" and mode
+ * Bumpless transfer (Åström & Hägglund 1995, ch. 3 "bumpless parameter changes" and mode
  * switching by integrator tracking): whenever OUT has been imposed from outside (start-up,
  * manual, bad PV, retune), the first automatic sample sets I = OUT_prev − P − D, so OUT continues
  * from where it was and only then moves with the error.

@@ -2,7 +2,7 @@
  * The three PID forms, each converted to one internal representation: the standard (ISA ideal)
  * form u = Kc[e + (1/Ti)∫e dt + Td de/dt], with Ti = 0 meaning no integral action.
  *
- * Conversions (Åström & Hägglund, PID Controllers: Theory, Design, and Tuning, 2nd ed., ISA 1995, §3.2):
+ * Conversions (Åström & Hägglund, PID Controllers: Theory, Design, and Tuning, 2nd ed., ISA 1995, ch. 3):
  * - series (interacting) Kc(1 + 1/(Ti s))(1 + Td s) → ideal:
  *     Kc' = Kc(1 + Td/Ti),  Ti' = Ti + Td,  Td' = Ti·Td/(Ti + Td).
  *   Without integral action (Ti = 0) the series PD Kc(1 + Td s) is already ideal.
@@ -21,7 +21,7 @@ export interface IdealPidParams {
   td: number;
 }
 
-/** Series (interacting) → ideal (Åström & Hägglund 1995, §3.2). */
+/** Series (interacting) → ideal (Åström & Hägglund 1995, ch. 3). */
 export function seriesToIdeal(kc: number, ti: number, td: number): IdealPidParams {
   if (ti === 0) return { kc, ti: 0, td };
   return { kc: kc * (1 + td / ti), ti: ti + td, td: (ti * td) / (ti + td) };

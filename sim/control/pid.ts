@@ -1,7 +1,7 @@
 /**
  * Discrete PID in the standard (ideal) form with setpoint weights, derivative filter and
  * anti-windup, after Åström & Hägglund (PID Controllers: Theory, Design, and Tuning, 2nd ed.,
- * ISA 1995, §3.5 and §3.6; also Åström & Wittenmark, Computer-Controlled Systems):
+ * ISA 1995, ch. 3; also Åström & Wittenmark, Computer-Controlled Systems):
  *
  *   P(k)   = Kc (b·r − y)
  *   D(k)   = ad·D(k−1) + bd·[(c·r(k) − y(k)) − (c·r(k−1) − y(k−1))],
@@ -9,6 +9,9 @@
  *   v(k)   = P + I + D,   u(k) = limits(v(k))
  *   I(k+1) = I(k) + (Kc h/Ti) e(k) + (h/Tt)(u(k) − v(k))       (integral updated after the output;
  *            the last term is back-calculation; e = r − y)
+ *
+ * (The discrete form is as recalled from A&H; references §13 tags it MEMORY. Its coefficients are
+ * checked in the tests against the computed values for Kc = 2, Td = 1, N = 10, h = 0.1.)
  *
  * Signs: every term is multiplied by the action sign (+1 reverse, −1 direct).
  * Deadband: the error in P and I passes through a dead zone of ±deadband (continuous, no jump).
@@ -42,7 +45,7 @@ export function defaultTrackingTime(ti: number, td: number): number {
   return td > 0 ? Math.sqrt(ti * td) : ti;
 }
 
-/** Discrete-law coefficients for a configuration (A&H 1995 §3.6 discretisation). */
+/** Discrete-law coefficients for a configuration (A&H 1995, ch. 3 discretisation). */
 export function pidCoefficients(cfg: ControllerConfig): PidCoefficients {
   const { kc, ti, td } = toIdeal(cfg.form, cfg);
   const h = cfg.sampleTimeS;
@@ -131,7 +134,7 @@ export class DiscretePid {
     return k.sign * k.kc * (deadZone(r - y, this.deadband) + (k.b - 1) * r);
   }
 
-  /** Filtered backward-difference derivative (A&H 1995 §3.6). Updates the derivative state. */
+  /** Filtered backward-difference derivative (A&H 1995, ch. 3). Updates the derivative state. */
   private derivativeTerm(r: number, y: number): number {
     const k = this.k;
     const dIn = k.c * r - y;

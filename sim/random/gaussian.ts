@@ -4,7 +4,7 @@
  * between JavaScript engines).
  *
  * Method: Irwin–Hall. The sum of n independent U(0,1) has mean n/2 and variance n/12
- * (J. O. Irwin, Biometrika 19, 1927; P. Hall, Biometrika 19, 1927). With n = 12 the variance is
+ * (J. O. Irwin, Biometrika 19, 1927; P. Hall, Biometrika 19, 1927; citations from memory). With n = 12 the variance is
  * exactly 1, so  z = Σ₁¹² Uᵢ − 6  needs no variance correction (for other n the correction
  * would be the factor √(12/n)).
  *

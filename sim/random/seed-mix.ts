@@ -3,7 +3,7 @@
  *
  * Method: the MurmurHash3 32-bit finaliser ("fmix32", A. Appleby, public domain), applied to a
  * Weyl sequence with increment 0x9E3779B9 (⌊2³²/φ⌋), i.e. the 32-bit analogue of SplitMix
- * (Steele, Lea & Flood, "Fast splittable pseudorandom number generators", OOPSLA 2014).
+ * (Steele, Lea & Flood, "Fast splittable pseudorandom number generators", OOPSLA 2014; from memory).
  * Integer arithmetic only (Math.imul, shifts, xor), so it is bit-exact in every JS engine.
  */
 

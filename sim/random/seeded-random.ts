@@ -2,7 +2,7 @@
  * Seeded, reproducible pseudo-random numbers for the engine's noise.
  *
  * Generator: xoshiro128** 1.1 (D. Blackman, S. Vigna, "Scrambled linear pseudorandom number
- * generators", ACM TOMS 47(4), 2021; reference C code at prng.di.unimi.it). 128-bit state,
+ * generators", ACM TOMS 47(4), 2021, citation from memory; reference C code at prng.di.unimi.it). 128-bit state,
  * period 2¹²⁸ − 1, pure 32-bit integer arithmetic (Math.imul, shifts, rotations), so a seed
  * gives the same sequence bit-for-bit in every JavaScript engine.
  *

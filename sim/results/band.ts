@@ -1,6 +1,6 @@
 /**
  * The settling / recovery band half-width: ± max(2 % of |step|, an absolute floor, 3σ of the PV
- * noise). The 2 % criterion is the usual settling band (Ogata, Modern Control Engineering, §5-3);
+ * noise). The 2 % criterion is the usual settling band (Ogata, Modern Control Engineering, ch. 5);
  * the floor and the noise term keep the band meaningful for small steps and noisy measurements
  * (without them a noisy trace would never "settle").
  */

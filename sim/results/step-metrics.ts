@@ -2,7 +2,7 @@
  * Setpoint-step measures on a sampled response: rise time 10–90 %, overshoot (% of the step and
  * °C), settling time (last exit from the band). Crossing instants are interpolated linearly
  * between samples.
- * Definitions as in Ogata, Modern Control Engineering, 5th ed., §5-3 (with the 10–90 % rise time
+ * Definitions as in Ogata, Modern Control Engineering, 5th ed., ch. 5 (with the 10–90 % rise time
  * used for overdamped and process responses, and the settling band widened as in band.ts).
  */
 import { bandHalfWidthC, lastEntryIntoBand } from "./band";

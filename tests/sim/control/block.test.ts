@@ -13,7 +13,7 @@ function loop(b: ReturnType<typeof block>, plant: ReturnType<typeof firstOrderPl
   return outs;
 }
 
-describe("bumpless transfer (Åström & Hägglund 1995 §3.5: integrator tracking)", () => {
+describe("bumpless transfer (Åström & Hägglund 1995, ch. 3: integrator tracking)", () => {
   it("manual → auto: OUT continues from the manual value although SP ≠ PV", () => {
     const plant = firstOrderPlant(0.8, 60, 0.1, 20);
     const b = block({ kc: 3, ti: 40, td: 5, sampleTimeS: 0.1 }, { out: 0, mode: "manual", sp: 70, pv: 20 });
@@ -70,7 +70,7 @@ describe("bumpless transfer (Åström & Hägglund 1995 §3.5: integrator trackin
   });
 });
 
-describe("integral windup (Åström & Hägglund 1995 §3.5)", () => {
+describe("integral windup (Åström & Hägglund 1995, ch. 3)", () => {
   function saturate(antiWindup: "none" | "back-calculation" | "conditional") {
     // Heater far too small: SP unreachable, OUT pinned at 100 % for 300 s.
     const b = block({ kc: 2, ti: 20, td: 0, sampleTimeS: 0.1, antiWindup }, { out: 0, sp: 100, pv: 20 });
@@ -172,7 +172,7 @@ describe("bad PV (NAMUR NE 43 failure level reported by the sensor chain)", () =
   });
 });
 
-describe("closed loop: PI with b = 0 on a first-order plant is a second-order system (Ogata §5-3)", () => {
+describe("closed loop: PI with b = 0 on a first-order plant is a second-order system (Ogata ch. 5)", () => {
   it("overshoot and peak time match Mp = 16.3 %, tp = π/ωd for ζ = 0.5, ωn = 0.5 rad/s", () => {
     // Plant K/(τs+1), u = −Kc·y + (Kc/Ti)∫(r − y): Y/R = KKc/(τTi s² + Ti(1 + KKc)s + KKc), no zero.
     // K = 1, τ = 10, Kc = 4 → 2ζωn = (1 + KKc)/τ = 0.5; Ti = KKc/(τωn²) = 1.6 s → ωn = 0.5, ζ = 0.5.
@@ -197,7 +197,7 @@ describe("closed loop: PI with b = 0 on a first-order plant is a second-order sy
   });
 });
 
-describe("anti-windup equilibria (derived from the discrete law, A&H 1995 §3.5)", () => {
+describe("anti-windup equilibria (derived from the discrete law, A&H 1995, ch. 3)", () => {
   it("back-calculation settles where (Kc h/Ti)e = (h/Tt)(v − u): I → OUTmax − Kc·e + Kc·e·Tt/Ti", () => {
     // PI, Kc = 2, Ti = Tt = 20 s, e = 80 °C: v − u = Kc·e·Tt/Ti = 160, P = 160, so I → 100 + 160 − 160 = 100.
     const b = block({ kc: 2, ti: 20, sampleTimeS: 0.1, antiWindup: "back-calculation" }, { out: 0, sp: 100, pv: 20 });

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { seriesToIdeal, idealToSeries, parallelToIdeal, idealToParallel, controllerConfigSchema } from "../../../sim/control";
 import { block } from "./helpers";
 
-describe("PID forms (Åström & Hägglund 1995 §3.2)", () => {
+describe("PID forms (Åström & Hägglund 1995, ch. 3)", () => {
   it("series → ideal: Kc' = Kc(1 + Td/Ti), Ti' = Ti + Td, Td' = TiTd/(Ti + Td)", () => {
     const p = seriesToIdeal(2, 10, 2);
     expect(p.kc).toBeCloseTo(2.4, 14);

@@ -2,8 +2,8 @@ import { describe, expect, it } from "vitest";
 import { pidCoefficients, defaultTrackingTime, deadZone } from "../../../sim/control";
 import { block, cfg } from "./helpers";
 
-describe("discrete PID coefficients (Åström & Hägglund 1995 §3.6)", () => {
-  it("derivative coefficients for Kc = 2, Td = 1, N = 10, h = 0.1 are ad = 0.5 and bd = 10 (references §13)", () => {
+describe("discrete PID coefficients (Åström & Hägglund 1995, ch. 3)", () => {
+  it("derivative coefficients for Kc = 2, Td = 1, N = 10, h = 0.1 are ad = 0.5 and bd = 10 (references §13; the discrete form is tagged MEMORY there, the check values are computed)", () => {
     const k = pidCoefficients(cfg({ kc: 2, ti: 10, td: 1, derivativeFilterN: 10, sampleTimeS: 0.1 }));
     expect(k.ad).toBeCloseTo(0.5, 15);
     expect(k.bd).toBeCloseTo(10, 13);

@@ -165,3 +165,31 @@ describe("gaussian() construction", () => {
     expect(irwinHallGaussian({ nextUint32: () => 0x7fff8000 })).toBe(0); // halves 32767 and 32768 sum to 65535 each
   });
 });
+
+describe("uniformity (Pearson χ² goodness of fit, a standard statistical test)", () => {
+  it("64 equal bins over 256 000 draws: χ² within the 99.9 % range of χ²(63)", () => {
+    const r = new SeededRandom(8675309);
+    const bins = new Float64Array(64);
+    const n = 256_000;
+    for (let k = 0; k < n; k++) bins[Math.floor(r.uniform() * 64)]++;
+    const expected = n / 64;
+    let chi2 = 0;
+    for (const b of bins) chi2 += ((b - expected) * (b - expected)) / expected;
+    // χ²(63) quantiles (standard tables, from memory): 0.1 % ≈ 33.4, 99.9 % ≈ 103.4.
+    expect(chi2).toBeGreaterThan(33);
+    expect(chi2).toBeLessThan(104);
+  });
+
+  it("successive pairs are uncorrelated (serial correlation of u_k, u_k+1 within 5 SE of 0)", () => {
+    const r = new SeededRandom(4242);
+    const n = 100_000;
+    let prev = r.uniform() - 0.5;
+    let s = 0;
+    for (let k = 0; k < n; k++) {
+      const u = r.uniform() - 0.5;
+      s += prev * u;
+      prev = u;
+    }
+    expect(Math.abs((12 * s) / n)).toBeLessThan(5 / Math.sqrt(n));
+  });
+});

@@ -1,4 +1,4 @@
-/** Underdamped second-order unit step (Ogata, Modern Control Engineering, 5th ed., §5-3). */
+/** Underdamped second-order unit step (Ogata, Modern Control Engineering, 5th ed., ch. 5). */
 export function secondOrderStep(zeta: number, wn: number, t: number): number {
   const wd = wn * Math.sqrt(1 - zeta * zeta);
   const beta = Math.acos(zeta);

@@ -10,7 +10,7 @@ const OGATA: [number, number, number, number][] = [
   [0.7, 4.5988, 2.1262, 5.979],
 ];
 
-describe("step metrics on an analytic underdamped second-order response (Ogata §5-3, ωn = 1)", () => {
+describe("step metrics on an analytic underdamped second-order response (Ogata ch. 5, ωn = 1)", () => {
   it.each(OGATA)("ζ = %f: Mp, 10–90 %% rise time and 2 %% settling time", (zeta, mp, tr, ts) => {
     const h = 0.001;
     const { t, y } = sampled(40_001, h, (tt) => secondOrderStep(zeta, 1, tt));

@@ -74,3 +74,30 @@ describe("computeWindowResults", () => {
     expect(windowIndices(t, 3, 4)).toEqual({ first: 6, last: 5 });
   });
 });
+
+describe("band with PV noise", () => {
+  it("3σ of the noise widens the band for a small step, so a noisy filtered PV can settle", async () => {
+    const { SeededRandom } = await import("../../../sim/random");
+    const rng = new SeededRandom(12);
+    const h = 0.1;
+    const n = 4001;
+    const sigma = 0.03;
+    // A 2 °C step, ζ = 0.7, ωn = 0.1; noise σ = 0.03 °C, filtered so that 3σ is rarely exceeded.
+    const { t, y } = sampled(n, h, (tt) => 50 + 2 * secondOrderStep(0.7, 0.1, tt));
+    let f = 0;
+    for (let k = 0; k < n; k++) {
+      f += 0.5 * (sigma * rng.gaussian() - f);
+      y[k] += f; // low-pass noise of sd ≈ σ·√(0.5/1.5) ≈ 0.017
+    }
+    const sp = constant(n, 52);
+    const base = { t, y, sp, out: constant(n, 0), heaterPowerW: constant(n, 0), windowStartS: 0, windowEndS: 400, kind: "setpoint" as const, stepSizeC: 2 };
+    const noisy = computeWindowResults({ ...base, bandFloorC: 0.01, noiseSigmaC: sigma });
+    expect(noisy.bandC).toBeCloseTo(0.09, 12); // 3σ beats 2 % of 2 °C (0.04) and the floor
+    expect(noisy.settlingTimeS).not.toBeNull();
+    // The wider band is entered earlier than the noise-free ±0.04 band would be (≈ 59.8 s for ζ = 0.7 / ωn).
+    expect(noisy.settlingTimeS!).toBeLessThan(59.8);
+    const tight = computeWindowResults({ ...base, bandFloorC: 0.01, noiseSigmaC: 0 });
+    expect(tight.bandC).toBeCloseTo(0.04, 12);
+    expect(tight.settlingTimeS === null || tight.settlingTimeS > noisy.settlingTimeS!).toBe(true);
+  });
+});
