@@ -8,3 +8,4 @@ export * from "./score";
 export * from "./permissions";
 export * from "./resolve";
 export * from "./run-drill";
+export * from "./json-schema";

@@ -27,28 +27,32 @@ export function outerLossW(p: NonlinearLossParams, tWallC: number, tAmbC: number
 /**
  * Loss from the inner wall node at tWallC through the insulation (resistance rInsKPerW) and the
  * nonlinear outer film: the massless skin temperature T_s solves (T_w − T_s)/R = Q_out(T_s).
- * Method: safeguarded Newton on that monotone scalar equation (bisection fallback inside the
- * bracket between T_amb and T_w).
+ * Method: safeguarded Newton with the analytic derivative on that monotone scalar equation
+ * (bisection fallback inside the bracket between T_amb and T_w).
  */
 export function wallLossThroughInsulationW(p: NonlinearLossParams, rInsKPerW: number, tWallC: number, tAmbC: number): number {
   let lo = Math.min(tWallC, tAmbC);
   let hi = Math.max(tWallC, tAmbC);
   if (hi - lo < 1e-12) return 0;
-  const f = (ts: number) => (tWallC - ts) / rInsKPerW - outerLossW(p, ts, tAmbC);
+  const ta = tAmbC + ZERO_CELSIUS_K;
+  const ta4 = ta * ta * ta * ta;
+  const es = p.emissivity * STEFAN_BOLTZMANN_W_PER_M2_K4;
   let ts = tAmbC + (tWallC - tAmbC) * 0.2;
   for (let it = 0; it < 60; it++) {
-    const fv = f(ts);
+    // f(T_s) = (T_w − T_s)/R − A[c|ΔT|^¼ΔT + εσ(T_s⁴ − T∞⁴)], f' = −1/R − A[(5/4)c|ΔT|^¼ + 4εσT_s³]
+    const dt = ts - tAmbC;
+    const q = Math.pow(Math.abs(dt), 0.25);
+    const tk = ts + ZERO_CELSIUS_K;
+    const tk3 = tk * tk * tk;
+    const fv = (tWallC - ts) / rInsKPerW - p.areaM2 * (p.convectionCoefficient * q * dt + es * (tk3 * tk - ta4));
+    const df = -1 / rInsKPerW - p.areaM2 * (1.25 * p.convectionCoefficient * q + 4 * es * tk3);
     if (fv > 0) lo = ts;
     else hi = ts;
-    const d = 1e-6 * Math.max(1, Math.abs(ts));
-    const df = (f(ts + d) - fv) / d;
     let next = ts - fv / df;
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - ts) < 1e-11 * Math.max(1, Math.abs(ts))) {
-      ts = next;
-      break;
-    }
+    const done = Math.abs(next - ts) < 1e-11 * Math.max(1, Math.abs(ts));
     ts = next;
+    if (done) break;
   }
   return (tWallC - ts) / rInsKPerW;
 }

@@ -53,7 +53,7 @@ const walkIn: EnclosureParamsInput = {
   heaterHeatCapacityJPerK: 6000, // ≈ 12 kg finned air heater battery
   heaterTimeConstantS: 120,
   inletAirflowM3PerH: 250, // moisture exhaust
-  doorOpenAirflowM3PerH: 2500,
+  doorOpenAirflowM3PerH: 1200,
   ambientC: 16,
   pressurePa: 101325,
   contents: { massKg: 300, specificHeatJPerKgK: 1700, airCouplingWPerK: 120 }, // timber on racks
