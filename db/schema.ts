@@ -1,8 +1,11 @@
 import { sql } from "drizzle-orm";
 import {
+  bigint,
   boolean,
+  doublePrecision,
   index,
   integer,
+  jsonb,
   pgEnum,
   pgTable,
   primaryKey,
@@ -155,3 +158,87 @@ export const caughtMail = pgTable(
 
 export type UserRole = (typeof userRole.enumValues)[number];
 export type User = typeof users.$inferSelect;
+
+// ---- The Bench's saved work (migration 0001_bench_saved_work) ----
+// A plant reference is "preset:<presetId>" (the engine's built-in rigs) or "plant:<uuid>" (a row of
+// `plants`). Tuning sets and saved runs carry the reference as text, so a preset needs no row.
+// JSON columns hold documents already validated with the engine's zod schemas (sim/): the
+// application is the only writer. The trace of a saved run is never stored; replay re-derives it.
+
+export const plantOrigin = pgEnum("plant_origin", ["physical", "twin"]);
+
+export const plants = pgTable(
+  "plants",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: uuid("organization_id")
+      .notNull()
+      .references(() => organizations.id),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => users.id),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    /** a PlantDefinition (sim/plant/plant-definition.ts), parsed output with defaults filled */
+    definition: jsonb("definition").$type<Record<string, unknown>>().notNull(),
+    origin: plantOrigin("origin").notNull().default("physical"),
+    /** readable by every signed-in user of the organisation; only the owner edits */
+    shared: boolean("shared").notNull().default(false),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
+  },
+  (t) => [index("plants_owner_idx").on(t.ownerId), index("plants_org_shared_idx").on(t.organizationId, t.shared)],
+);
+
+export const tuningSets = pgTable(
+  "tuning_sets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: uuid("organization_id")
+      .notNull()
+      .references(() => organizations.id),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => users.id),
+    plantRef: text("plant_ref").notNull(),
+    name: text("name").notNull(),
+    /** a ControllerConfig (sim/control/config.ts) */
+    controller: jsonb("controller").$type<Record<string, unknown>>().notNull(),
+    notes: text("notes").notNull().default(""),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("tuning_sets_owner_plant_name_unique").on(t.ownerId, t.plantRef, t.name)],
+);
+
+export const savedRuns = pgTable(
+  "saved_runs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: uuid("organization_id")
+      .notNull()
+      .references(() => organizations.id),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => users.id),
+    plantRef: text("plant_ref").notNull(),
+    title: text("title").notNull(),
+    /** the drill document the Bench ran (sim/drill/schema.ts, parsed) */
+    drill: jsonb("drill").$type<Record<string, unknown>>().notNull(),
+    /** the controller configuration at the start of the run */
+    controller: jsonb("controller").$type<Record<string, unknown>>().notNull(),
+    // bigint: a drill seed spans 0 … 2³² − 1, beyond PostgreSQL's integer
+    seed: bigint("seed", { mode: "number" }).notNull(),
+    /** the stamped operator actions (sim/drill/actions.ts) */
+    actionLog: jsonb("action_log").$type<unknown[]>().notNull(),
+    /** run results as the Bench computed them (sim/drill/results.ts); a record, not a score */
+    results: jsonb("results").$type<Record<string, unknown>>().notNull(),
+    engineVersion: text("engine_version").notNull(),
+    durationS: doublePrecision("duration_s").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("saved_runs_owner_plant_idx").on(t.ownerId, t.plantRef, t.createdAt)],
+);
+
+export type PlantRow = typeof plants.$inferSelect;
+export type TuningSetRow = typeof tuningSets.$inferSelect;
+export type SavedRunRow = typeof savedRuns.$inferSelect;
