@@ -196,6 +196,12 @@ export class Simulation {
   }
 
   private applyChange(c: TimelineChange, timeS: number, label: string): void {
+    if (this.plant.kind === "transfer-function") {
+      const physical =
+        c.kind === "load-in" || c.kind === "load-out" ||
+        (c.kind === "conditions" && (c.patch.inletBlockagePercent !== undefined || c.patch.doorAirflowM3PerH !== undefined));
+      if (physical) label += " (no effect on a transfer-function plant)";
+    }
     switch (c.kind) {
       case "setpoint":
         this.controller.setSetpoint(c.setpointC);
