@@ -84,6 +84,13 @@ export class TimeProportioningDrive implements HeaterDrive {
     return this.seg;
   }
 
+  /** Switching instants of the current cycle: its start, the end of its pulse (if inside), the next start. */
+  switchingInstants(): number[] {
+    const start = this.cycleStart(this.cycle);
+    const next = this.cycleStart(this.cycle + 1);
+    return this.onEnd > start && this.onEnd < next ? [start, this.onEnd, next] : [start, next];
+  }
+
   /** carry held for the next cycle, s */
   get carryS(): number {
     return this.carry;

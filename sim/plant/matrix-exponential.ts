@@ -3,9 +3,10 @@
  * Method: scaling and squaring with the diagonal (q,q) Padé approximant, q = 6
  * (Golub & Van Loan, Matrix Computations, 4th ed., Algorithm 9.3.1; Moler & Van Loan,
  * "Nineteen dubious ways to compute the exponential of a matrix, twenty-five years later",
- * SIAM Review 45(1), 2003). A is scaled by 2^-s so that ‖A/2^s‖∞ ≤ 1/2, which bounds the
- * relative error of the (6,6) approximant below 1e-16·... (G&VL Thm 9.3.1); then squared s times.
- * Row-major n×n arrays.
+ * SIAM Review 45(1), 2003; algorithm and theorem numbers from memory). A is scaled by 2^-s so
+ * that ‖A/2^s‖∞ ≤ 1/2; the (p,q) = (6,6) approximant then has a backward error below
+ * 2^{3−(p+q)} p! q! / ((p+q)! (p+q+1)!) ≈ 3.4e-16 (Moler & Van Loan's bound); then it is squared
+ * s times. Row-major n×n arrays.
  */
 export function matMul(a: Float64Array, b: Float64Array, n: number, out = new Float64Array(n * n)): Float64Array {
   for (let i = 0; i < n; i++) {

@@ -1,7 +1,7 @@
 /**
  * Eigen-decomposition of a real symmetric matrix, S = Q·diag(d)·Qᵀ.
  * Method: cyclic Jacobi rotations (Golub & Van Loan, Matrix Computations, 4th ed., §8.5,
- * Algorithm 8.5.3 with the stable rotation of §8.5.2). Slow for large n but unconditionally
+ * Algorithm 8.5.3 with the stable rotation of §8.5.2; numbers from memory). Slow for large n but unconditionally
  * convergent and accurate for the 4–6-node networks here; eigenvectors are orthonormal even for
  * repeated eigenvalues, which the modal stepper relies on.
  */

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { runDrill, type StampedAction } from "@/sim/drill";
 import { firstOrderPlant, makeDrill, QUIET_SENSOR } from "./drills";
 
-describe("bumpless transfer through the runner (Åström & Hägglund 1995 §3.5, integrator tracking)", () => {
+describe("bumpless transfer through the runner (Åström & Hägglund 1995, integrator tracking; section from memory)", () => {
   it("|ΔOUT| stays small over the samples after manual → auto and auto → manual", () => {
     const drill = makeDrill({
       durationS: 900,
@@ -20,7 +20,7 @@ describe("bumpless transfer through the runner (Åström & Hägglund 1995 §3.5,
   });
 });
 
-describe("integral windup (Åström & Hägglund 1995 §3.5; references §13 back-calculation)", () => {
+describe("integral windup (references §13 back-calculation [CONFIRMED-2nd]; common practice)", () => {
   it("is visible without anti-windup and bounded with back-calculation", () => {
     const mk = (antiWindup: "none" | "back-calculation") =>
       makeDrill({

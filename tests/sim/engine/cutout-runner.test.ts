@@ -2,8 +2,8 @@ import { describe, expect, it } from "vitest";
 import { runDrill, Simulation } from "@/sim/drill";
 import { makeDrill, QUIET_SENSOR } from "./drills";
 
-// NFPA 86 excess-temperature limit (references §14): independent of the controller, own sensor,
-// latches, manual reset only.
+// NFPA 86 excess-temperature limit (references §14; title and scope [CONFIRMED], clause wording
+// [MEMORY]): independent of the controller, own sensor, latches, manual reset only.
 describe("excess-temperature cutout through the runner", () => {
   const drill = makeDrill({
     durationS: 6000,

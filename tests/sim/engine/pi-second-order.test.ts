@@ -5,7 +5,7 @@ import { firstOrderPlant, makeDrill, QUIET_SENSOR } from "./drills";
 // First-order plant K/(τs+1) under PI with setpoint weight b = 0 (P acts on −y only):
 //   y/r = (K·Kc/(τ·Ti)) / (s² + s(1 + K·Kc)/τ + K·Kc/(τ·Ti))   — a pure 2nd-order loop, no zero.
 // K = 1 °C/%, τ = 100 s, Kc = 1 %/°C, Ti = 25 s → ωn = 0.02 rad/s, ζ = 0.5.
-// Ogata, Modern Control Engineering 5th ed. ch. 5 (references §9): Mp = 100·exp(−ζπ/√(1−ζ²)) = 16.3034 %,
+// Ogata, Modern Control Engineering 5th ed. ch. 5 (references §9, formulas [CONFIRMED-2nd]): Mp = 100·exp(−ζπ/√(1−ζ²)) = 16.3034 %,
 // tp = π/ωd = π/(ωn√(1−ζ²)) = 181.380 s. Sample time 0.05 s (Ts·ωn = 0.001), no noise;
 // tolerance: Mp within 0.3 percentage points, tp within 1 s (the sampled PI adds ≈ Ts/2 of delay).
 describe("first-order plant under PI with b = 0 (Ogata second-order step response)", () => {

@@ -6,7 +6,7 @@ import { findPreset, PLANT_PRESETS } from "@/sim/plant/presets";
 import { outerLossW } from "@/sim/plant/nonlinear-losses";
 
 describe("derived figures", () => {
-  it("FOPDT: static gain, t63 = θ + τ and the Smith two-point fit (references §8)", () => {
+  it("FOPDT: static gain, t63 = θ + τ and the Smith two-point fit (Bequette §4.2 [CONFIRMED], references §8)", () => {
     const p = transferFunctionParamsSchema.parse({
       kind: "transfer-function", gainCPerPercent: 1.2, timeConstantsS: [300], deadTimeS: 40,
       operatingPoint: { outPercent: 0, temperatureC: 20 }, ambientC: 20,
@@ -34,7 +34,7 @@ describe("nonlinear-loss mode", () => {
   const lin = findPreset("benchtop-curing-cabinet")!.plant;
   const nl = { ...lin, lossModel: "nonlinear" as const };
 
-  it("outer loss: natural convection ∝ ΔT^(5/4) plus radiation εσ(T⁴ − T∞⁴) (Stefan–Boltzmann)", () => {
+  it("outer loss: natural convection ∝ ΔT^(5/4) (correlation form from memory) plus radiation εσ(T⁴ − T∞⁴) (Stefan–Boltzmann, σ CODATA 2018)", () => {
     const p = { convectionCoefficient: 1.32, emissivity: 0, areaM2: 1 };
     expect(outerLossW(p, 36, 20)).toBeCloseTo(1.32 * 16 * 2, 9);
     const r = { convectionCoefficient: 0, emissivity: 1, areaM2: 1 };

@@ -8,7 +8,7 @@ import { findPreset } from "@/sim/plant/presets";
 const cabinet = findPreset("benchtop-curing-cabinet")!.plant;
 
 describe("enclosure steady state", () => {
-  it("obeys its own heat balance P = (ṁ·cp + U·A)(T − T_amb) (lumped model, derived)", () => {
+  it("obeys its own heat balance P = (ṁ·cp + U·A)(T − T_amb) (the model's own equations; ṁ = ρ(T_inlet)·V̇, references §12)", () => {
     const p = cabinet;
     const mcp = ((airDensity(p.ambientC) * p.inletAirflowM3PerH) / 3600) * AIR_SPECIFIC_HEAT_J_PER_KG_K;
     const ua = p.wallUValueWPerM2K * p.wallAreaM2;
@@ -27,7 +27,7 @@ describe("enclosure steady state", () => {
     expect(plant.sensorTemperatureC()).toBeCloseTo(plant.airTemperatureC(), 6);
   });
 
-  it("matches the ventilation rule of thumb V̇ ≈ 3.1·P/ΔT (common practice; ρ·cp from Çengel Table A-9)", () => {
+  it("matches the ventilation rule of thumb V̇ ≈ 3.1·P/ΔT (common practice, references §12; ρ·cp from Çengel Table A-9 [CONFIRMED])", () => {
     // A well-insulated box whose loss is almost all ventilation, inlet air at 33 °C (where
     // 3600/(ρ·cp) ≈ 3.1, references §12). 500 W, 155 m³/h → ΔT ≈ 10 K by the rule.
     const p = enclosureParamsSchema.parse({

@@ -10,7 +10,7 @@ function tf(timeConstantsS: number[], deadTimeS: number) {
 }
 
 describe("transfer-function plant, open loop", () => {
-  it("FOPDT with θ = 0: step matches K·Δu·(1 − e^{−t/τ}) (first-order analytic solution, e.g. Bequette §4.2)", () => {
+  it("FOPDT with θ = 0: step matches K·Δu·(1 − e^{−t/τ}) (analytic solution of τy' + y = Ku; FOPDT convention of references)", () => {
     const plant = new TransferFunctionPlant(tf([100], 0), { cutoutSensorTimeConstantS: 5 });
     for (let k = 1; k <= 600; k++) {
       plant.advance(1, 0.5);
