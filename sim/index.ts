@@ -12,3 +12,4 @@ export * from "./sensor";
 export * from "./control";
 export * from "./results";
 export * from "./units";
+export * from "./tuning/rules";
