@@ -59,7 +59,7 @@ export function runDrill(
     cutoutPointC: sim.cutoutConfig.tripPointC,
     safetyTrips: sim.safetyTrips,
     heaterEnergyKWh: energyKWh(trace, sim.sampleTimeS),
-    controllerViolations: controllerViolations(drill, cfg),
+    controllerViolations: allViolations(drill, cfg, actions),
   });
   const run: DrillRun = { engineVersion: ENGINE_VERSION, seed: sim.seed, controller: cfg, trace, events: sim.events, actions: sim.actionLog, results };
   if (options.score) {
@@ -74,4 +74,14 @@ function energyKWh(trace: Trace, ts: number): number {
   let e = 0;
   for (let i = 0; i + 1 < trace.length; i++) e += trace.heaterPowerW[i] * ts;
   return e / 3.6e6;
+}
+
+/** Rule violations of the starting configuration and of every tuning change in the log. */
+function allViolations(drill: Drill, cfg: ControllerConfig, actions: readonly StampedAction[]): string[] {
+  const found = new Set(controllerViolations(drill, cfg));
+  for (const a of actions) {
+    if (a.type !== "tuning") continue;
+    for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) found.add(v);
+  }
+  return [...found];
 }

@@ -38,6 +38,11 @@ describe("what the trainee may change", () => {
     expect(controllerViolations(ladder, controllerConfigSchema.parse({ ...ref, pvFilterTauS: 3 }))).toEqual([]); // pvFilter allowed
     expect(controllerViolations(ladder, controllerConfigSchema.parse({ ...ref, sampleTimeS: 1 }))).toEqual(["sampleTimeS"]);
   });
+
+  it("runDrill reports violations made through a tuning change in the action log", () => {
+    const r = runDrill(ladder, null, [{ sample: 10, type: "tuning", controller: controllerConfigSchema.parse({ ...ladder.referenceTuning, action: "direct" }) }]);
+    expect(r.results.controllerViolations).toEqual(["action"]);
+  });
 });
 
 describe("timeline", () => {
