@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { EnclosurePlant } from "@/sim/plant/enclosure-plant";
 import { findPreset } from "@/sim/plant/presets";
 
-// First law for the lumped model: ∫P dt = ΔΣC·T + ∫(ventilation + wall loss) dt (+ load energy).
+// First law for the lumped model: ∫P dt + E_loads = ΔΣC·T + ∫(ventilation + wall loss) dt.
 // The losses are integrated independently along the trajectory (composite Simpson on a 0.5 s grid
 // inside each constant-input interval), not taken from the stepper.
 function run(lossModel: "linear" | "nonlinear") {
@@ -36,7 +36,20 @@ function run(lossModel: "linear" | "nonlinear") {
     interval(10, 1);
     interval(10, 0);
   }
-  return { heater: plant.heaterEnergyJ, stored: plant.storedEnergyJ() - e0, lost };
+  plant.placeColdLoad({ massKg: 2, specificHeatJPerKgK: 900, temperatureC: 4, airCouplingWPerK: 6 });
+  for (let c = 0; c < 50; c++) {
+    interval(12, 1);
+    interval(8, 0);
+  }
+  plant.placeColdLoad({ massKg: 1, specificHeatJPerKgK: 500, temperatureC: -10, airCouplingWPerK: 3 }); // mixes into the lump
+  for (let c = 0; c < 50; c++) {
+    interval(12, 1);
+    interval(8, 0);
+  }
+  plant.removeColdLoad();
+  for (let c = 0; c < 20; c++) interval(20, c % 2 === 0 ? 1 : 0);
+  // energy carried in (+) and out (−) with the loads enters the balance as a boundary term
+  return { heater: plant.heaterEnergyJ + plant.loadEnergyJ, stored: plant.storedEnergyJ() - e0, lost };
 }
 
 describe("energy balance along a switched trajectory", () => {
