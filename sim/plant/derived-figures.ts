@@ -114,3 +114,9 @@ export function derivedFigures(def: PlantDefinition, outPercent = 50): DerivedFi
     fopdtFit: { gainCPerPercent: span / 100, timeConstantS: tau, deadTimeS: Math.max(0, t63 - tau) },
   };
 }
+
+/** Power curve: steady-state air temperature against output % (the sweep to steady state,
+ * computed directly from the steady-state balance; bends in the nonlinear-loss mode). */
+export function powerCurve(def: PlantDefinition, outputsPercent: readonly number[]): { outPercent: number; steadyStateC: number }[] {
+  return outputsPercent.map((o) => ({ outPercent: o, steadyStateC: steadyStateTemperatureC(def, o) }));
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { derivedFigures, steadyStateTemperatureC } from "@/sim/plant/derived-figures";
+import { derivedFigures, powerCurve, steadyStateTemperatureC } from "@/sim/plant/derived-figures";
 import { transferFunctionParamsSchema } from "@/sim/plant/transfer-function-params";
 import { EnclosurePlant } from "@/sim/plant/enclosure-plant";
 import { findPreset, PLANT_PRESETS } from "@/sim/plant/presets";
@@ -41,8 +41,13 @@ describe("nonlinear-loss mode", () => {
     expect(outerLossW(r, 100, 0)).toBeCloseTo(5.670374419e-8 * (373.15 ** 4 - 273.15 ** 4), 9);
   });
 
+  it("the power curve is straight in the linear mode", () => {
+    const c = powerCurve(lin, [0, 50, 100]);
+    expect(c[2].steadyStateC - c[1].steadyStateC).toBeCloseTo(c[1].steadyStateC - c[0].steadyStateC, 9);
+  });
+
   it("the power curve bends: equal output steps give shrinking temperature steps", () => {
-    const t = [0, 25, 50, 75, 100].map((o) => steadyStateTemperatureC(nl, o));
+    const t = powerCurve(nl, [0, 25, 50, 75, 100]).map((p) => p.steadyStateC);
     const d = t.slice(1).map((x, i) => x - t[i]);
     for (let i = 1; i < d.length; i++) expect(d[i]).toBeLessThan(d[i - 1]);
   });
