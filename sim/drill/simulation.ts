@@ -9,8 +9,8 @@
  *   4. the controller block updates → OUT;
  *   5. the row is recorded; the cutout supervises its own sensor;
  *   6. the plant is integrated to t_{k+1} in exact pieces: the drive's switching instants and the
- *      timeline changes are breakpoints, and the cutout is checked at every breakpoint (a trip
- *      cuts the heater from that instant).
+ *      timeline changes are breakpoints, and the cutout is checked at every breakpoint, so at
+ *      least once per sample (its scan; a trip cuts the heater from that instant).
  * The noise uses a SeededRandom stream forked from the seed, so the same inputs give the same
  * trace, and the true temperature does not depend on the seed in open loop.
  */
@@ -329,7 +329,10 @@ export class Simulation {
       t = until;
       this.superviseCutout(t);
       if (t >= tEnd) break;
-      this.applyChangesUpTo(t);
+      if (this.nextChange < this.changes.length && this.changes[this.nextChange].timeS <= t + SAME_INSTANT_S) {
+        this.applyChangesUpTo(t);
+        this.superviseCutout(t); // a failed cutout sensor trips at the instant of the fault
+      }
     }
     r.heaterPowerW[k] = energy / ts;
     r.heaterOn[k] = firstOn;

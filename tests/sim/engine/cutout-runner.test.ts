@@ -61,5 +61,8 @@ describe("excess-temperature cutout through the runner", () => {
     const r = runDrill(d);
     expect(r.results.safetyTrips.map((t) => t.cause)).toEqual(["sensor-failure"]);
     expect(r.results.safetyTrips[0].timeS).toBeCloseTo(50, 9);
+    // a fault between samples trips at its own instant
+    const mid = runDrill(makeDrill({ durationS: 100, events: [{ type: "sensor-fault", timeS: 50.123, fault: "lead-break", target: "cutout" }] }));
+    expect(mid.results.safetyTrips[0].timeS).toBeCloseTo(50.123, 9);
   });
 });
