@@ -9,7 +9,7 @@ import type { EnclosureParams } from "./enclosure-params";
 import { ModalStepper } from "./modal-stepper";
 import { enclosureDerivative, OdeStepper } from "./ode-stepper";
 import { Rk4Stepper } from "./rk4-stepper";
-import { wallLossThroughInsulationW } from "./nonlinear-losses";
+import { wallLossFunction } from "./nonlinear-losses";
 import { solveLinear } from "./matrix-exponential";
 import { buildEnclosureNetwork, conductanceMatrix, nominalConditions, type ThermalNetwork } from "./thermal-network";
 import type { InitialTemperatures, Plant } from "./plant";
@@ -95,7 +95,7 @@ export class EnclosurePlant implements Plant {
     const p = { ...pr.nonlinear, areaM2: pr.wallAreaM2 };
     const rIns = (1 / pr.wallUValueWPerM2K - 1 / pr.innerFilmCoefficientWPerM2K - 1 / pr.outerFilmCoefficientWPerM2K) / pr.wallAreaM2;
     const amb = this.cond.ambientC;
-    return (tw) => wallLossThroughInsulationW(p, rIns, tw, amb);
+    return wallLossFunction(p, rIns, amb);
   }
 
   /** Re-derives network and stepper; node temperatures by node id (new nodes take `newNode`). */

@@ -30,14 +30,18 @@ export function outerLossW(p: NonlinearLossParams, tWallC: number, tAmbC: number
  * Method: safeguarded Newton with the analytic derivative on that monotone scalar equation
  * (bisection fallback inside the bracket between T_amb and T_w).
  */
-export function wallLossThroughInsulationW(p: NonlinearLossParams, rInsKPerW: number, tWallC: number, tAmbC: number): number {
+export function wallLossThroughInsulationW(p: NonlinearLossParams, rInsKPerW: number, tWallC: number, tAmbC: number, guessSkinC?: number): number {
+  return skinSolve(p, rInsKPerW, tWallC, tAmbC, guessSkinC).lossW;
+}
+
+function skinSolve(p: NonlinearLossParams, rInsKPerW: number, tWallC: number, tAmbC: number, guessSkinC?: number): { lossW: number; skinC: number } {
   let lo = Math.min(tWallC, tAmbC);
   let hi = Math.max(tWallC, tAmbC);
-  if (hi - lo < 1e-12) return 0;
+  if (hi - lo < 1e-12) return { lossW: 0, skinC: tAmbC };
   const ta = tAmbC + ZERO_CELSIUS_K;
   const ta4 = ta * ta * ta * ta;
   const es = p.emissivity * STEFAN_BOLTZMANN_W_PER_M2_K4;
-  let ts = tAmbC + (tWallC - tAmbC) * 0.2;
+  let ts = guessSkinC !== undefined && guessSkinC > lo && guessSkinC < hi ? guessSkinC : tAmbC + (tWallC - tAmbC) * 0.2;
   for (let it = 0; it < 60; it++) {
     // f(T_s) = (T_w − T_s)/R − A[c|ΔT|^¼ΔT + εσ(T_s⁴ − T∞⁴)], f' = −1/R − A[(5/4)c|ΔT|^¼ + 4εσT_s³]
     const dt = ts - tAmbC;
@@ -54,5 +58,16 @@ export function wallLossThroughInsulationW(p: NonlinearLossParams, rInsKPerW: nu
     ts = next;
     if (done) break;
   }
-  return (tWallC - ts) / rInsKPerW;
+  return { lossW: (tWallC - ts) / rInsKPerW, skinC: ts };
+}
+
+/** The wall loss as a function of wall temperature, warm-starting Newton from the last skin
+ * temperature (it changes little between calls, so one or two iterations suffice). */
+export function wallLossFunction(p: NonlinearLossParams, rInsKPerW: number, tAmbC: number): (tWallC: number) => number {
+  let last: number | undefined;
+  return (tWallC) => {
+    const r = skinSolve(p, rInsKPerW, tWallC, tAmbC, last);
+    last = r.skinC;
+    return r.lossW;
+  };
 }
