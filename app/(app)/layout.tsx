@@ -10,7 +10,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col">
       <AppNav user={user} signOut={signOut} mailbox={mailboxEnabled()} />
-      <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8">{children}</main>
+      <main className="mx-auto w-full max-w-[100rem] flex-1 px-6 py-8">{children}</main>
       <SafetyFooter />
     </div>
   );

@@ -13,7 +13,7 @@ const sections = [
 export function AppNav({ user, signOut, mailbox }: { user: { displayName: string; role: UserRole }; signOut: () => Promise<void>; mailbox: boolean }) {
   return (
     <header className="border-b border-rule bg-paper-raised">
-      <nav className="mx-auto flex max-w-6xl items-center gap-6 px-6 py-2.5 text-sm" aria-label="Main">
+      <nav className="mx-auto flex max-w-[100rem] items-center gap-6 px-6 py-2.5 text-sm" aria-label="Main">
         <Link href="/dashboard" className="no-underline">
           <Wordmark />
         </Link>

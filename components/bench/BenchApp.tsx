@@ -1,0 +1,246 @@
+"use client";
+/**
+ * The Bench: plant and controller on the left, the trend with its run controls and results in
+ * the middle, the faceplate, disturbances and tests on the right. The engine runs in a Web
+ * Worker; this component only sends commands and shows what streams back.
+ */
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
+import { drillSchema } from "@/sim/drill/schema";
+import { noiseSigmaC, resolveCutout, resolveSensor } from "@/sim/drill/resolve";
+import { PLANT_PRESETS } from "@/sim/plant/presets";
+import { derivedFigures } from "@/sim/plant/derived-figures";
+import { temperatureToDisplay } from "@/sim/units";
+import { Trend } from "@/components/trend/Trend";
+import { BENCH_START_TUNING, benchDrill, plantDefinitionOf, type BenchPlant } from "./bench-drill";
+import { benchWindows } from "./bench-results";
+import { ControllerForm } from "./ControllerForm";
+import { DisturbancePanel } from "./DisturbancePanel";
+import { BenchEngine } from "./engine-client";
+import { Faceplate } from "./Faceplate";
+import { HelpOverlay } from "./HelpOverlay";
+import { ResultsTable } from "./ResultsTable";
+import { BENCH_SPEEDS, RunControls } from "./RunControls";
+import { useBench } from "./store";
+
+const DEFAULT_SEED = 20261201;
+
+function isTyping(target: EventTarget | null) {
+  const el = target as HTMLElement | null;
+  return !!el && (el.tagName === "INPUT" || el.tagName === "SELECT" || el.tagName === "TEXTAREA" || el.isContentEditable);
+}
+
+export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPresetId?: string }) {
+  const engineRef = useRef<BenchEngine | null>(null);
+  const [engine, setEngine] = useState<BenchEngine | null>(null);
+  const [plant, setPlant] = useState<BenchPlant>({ kind: "preset", presetId: initialPresetId });
+  const [plantTitle, setPlantTitle] = useState(PLANT_PRESETS.find((p) => p.id === initialPresetId)?.title ?? "");
+  const [controller, setController] = useState<ControllerConfig>(() => controllerConfigSchema.parse(BENCH_START_TUNING));
+  const [seed] = useState(DEFAULT_SEED);
+  const [setpointC] = useState(60);
+  const { status, speed, snapshot, events, units, showTruth, showRaw, helpOpen, engineVersion, error, set } = useBench();
+
+  const drill = useMemo(() => benchDrill({ plant, title: plantTitle, setpointC, reference: controller, seed }), [plant, plantTitle, setpointC, seed, controller]);
+  const parsedDrill = useMemo(() => drillSchema.parse(drill), [drill]);
+  const sensor = useMemo(() => resolveSensor(parsedDrill), [parsedDrill]);
+  const cutout = useMemo(() => resolveCutout(parsedDrill), [parsedDrill]);
+  const spanC = sensor.transmitter.rangeHighC - sensor.transmitter.rangeLowC;
+  const definition = useMemo(() => plantDefinitionOf(plant), [plant]);
+  const figures = useMemo(() => derivedFigures(definition, snapshot?.outPercent ?? 30), [definition, snapshot?.outPercent === undefined]);
+
+  // one worker per Bench
+  useEffect(() => {
+    const e = new BenchEngine();
+    engineRef.current = e;
+    setEngine(e);
+    return () => e.dispose();
+  }, []);
+
+  // (re)load when the plant changes; tuning changes are applied live instead
+  const load = useCallback(
+    (cfg: ControllerConfig) => {
+      engineRef.current?.load(benchDrill({ plant, title: plantTitle, setpointC, reference: cfg, seed }), cfg, seed);
+    },
+    [plant, plantTitle, setpointC, seed],
+  );
+  useEffect(() => {
+    if (engine) load(controller);
+    // controller excluded on purpose: applying a tuning must not restart the run
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [engine, load]);
+
+  const act = engineRef.current;
+  const onSetpoint = (spC: number) => act?.act({ type: "setpoint", setpointC: spC });
+  const onMode = (mode: "auto" | "manual") => act?.act({ type: "mode", mode });
+  const onManualOutput = (outPercent: number) => act?.act({ type: "manual-output", outPercent });
+
+  // keyboard first
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (isTyping(e.target) || e.ctrlKey || e.metaKey || e.altKey) return;
+      const s = useBench.getState();
+      const snap = s.snapshot;
+      const eng = engineRef.current;
+      if (!eng) return;
+      if (e.key === " ") {
+        e.preventDefault();
+        if (s.status === "running") eng.pause();
+        else eng.run(s.speed);
+      } else if (e.key === ".") eng.step(1);
+      else if (e.key === "a" || e.key === "A") snap && eng.act({ type: "mode", mode: snap.mode === "auto" ? "manual" : "auto" });
+      else if (e.key === "t" || e.key === "T") s.set({ showTruth: !s.showTruth });
+      else if (e.key === "?") s.set({ helpOpen: !s.helpOpen });
+      else if (e.key === "Escape") s.set({ helpOpen: false });
+      else if (/^[1-5]$/.test(e.key)) eng.run(BENCH_SPEEDS[Number(e.key) - 1].value);
+      else if ((e.key === "ArrowUp" || e.key === "ArrowDown") && snap) {
+        e.preventDefault();
+        const dir = e.key === "ArrowUp" ? 1 : -1;
+        if (e.shiftKey) {
+          if (snap.mode === "manual") eng.act({ type: "manual-output", outPercent: Math.min(100, Math.max(0, snap.outPercent + dir)) });
+        } else {
+          const stepC = s.units.temperature === "C" ? 0.5 : 1 / 1.8;
+          eng.act({ type: "setpoint", setpointC: Math.round((snap.setpointC + dir * stepC) * 1000) / 1000 });
+        }
+      }
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, []);
+
+  // results recomputed at most twice a second
+  const [windows, setWindows] = useState<ReturnType<typeof benchWindows>>([]);
+  useEffect(() => {
+    const id = setInterval(() => {
+      const b = engineRef.current?.buffer;
+      if (b) setWindows(benchWindows(b.view(), useBench.getState().events, noiseSigmaC(sensor), cutout.tripPointC));
+    }, 500);
+    return () => clearInterval(id);
+  }, [sensor, cutout]);
+
+  const choosePreset = (id: string) => {
+    const p = PLANT_PRESETS.find((x) => x.id === id);
+    if (!p) return;
+    setPlant({ kind: "preset", presetId: id });
+    setPlantTitle(p.title);
+  };
+
+  const t = (c: number) => `${temperatureToDisplay(c, units.temperature).toFixed(1)} °${units.temperature}`;
+
+  return (
+    <div className="grid gap-4 xl:grid-cols-[21rem_minmax(0,1fr)_20rem]">
+      <aside className="space-y-4">
+        <section aria-label="Plant" className="rounded-sm border border-rule bg-paper-raised p-4 text-sm">
+          <h2 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">Plant</h2>
+          <label className="sr-only" htmlFor="bench-plant">
+            Plant
+          </label>
+          <select id="bench-plant" value={plant.kind === "preset" ? plant.presetId : ""} onChange={(e) => choosePreset(e.target.value)} className="w-full rounded-sm border border-rule-strong bg-paper px-2 py-1.5 font-semibold">
+            {PLANT_PRESETS.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.title}
+              </option>
+            ))}
+          </select>
+          <dl className="num mt-3 grid grid-cols-[1fr_auto] gap-y-1 text-xs">
+            <dt className="font-sans text-ink-soft">Static gain</dt>
+            <dd>{figures.staticGainCPerPercent.toFixed(2)} °C/%</dd>
+            <dt className="font-sans text-ink-soft">Dominant time constant</dt>
+            <dd>{(figures.dominantTimeConstantS / 60).toFixed(1)} min</dd>
+            <dt className="font-sans text-ink-soft">Apparent dead time</dt>
+            <dd>{figures.apparentDeadTimeS.toFixed(0)} s</dd>
+            <dt className="font-sans text-ink-soft">Time to 63 %</dt>
+            <dd>{(figures.timeTo63PercentS / 60).toFixed(1)} min</dd>
+            <dt className="font-sans text-ink-soft">Transmitter range</dt>
+            <dd>
+              {t(sensor.transmitter.rangeLowC)} – {t(sensor.transmitter.rangeHighC)}
+            </dd>
+            <dt className="font-sans text-ink-soft">Cutout trip</dt>
+            <dd>{t(cutout.tripPointC)}</dd>
+          </dl>
+        </section>
+        <section aria-label="Controller settings" className="rounded-sm border border-rule bg-paper-raised p-4">
+          <h2 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">Controller</h2>
+          <ControllerForm
+            config={controller}
+            units={units}
+            spanC={spanC}
+            onUnits={(u) => set({ units: u })}
+            onApply={(cfg) => {
+              setController(cfg);
+              act?.act({ type: "tuning", controller: cfg });
+            }}
+            onRestart={(cfg) => {
+              setController(cfg);
+              load(cfg);
+            }}
+          />
+        </section>
+      </aside>
+
+      <div className="min-w-0 space-y-4">
+        <section className="rounded-sm border border-rule bg-paper-raised p-4">
+          <div className="mb-2 flex flex-wrap items-center gap-4 text-xs">
+            <h2 className="font-semibold uppercase tracking-wide text-ink-faint">Trend</h2>
+            <Legend color="var(--color-trace-sp, #4a4a4a)" dashed label="SP" />
+            <label className="flex items-center gap-1">
+              <input type="checkbox" checked={showRaw} onChange={(e) => set({ showRaw: e.target.checked })} />
+              <Legend color="#4a6f8f88" label="PV raw" />
+            </label>
+            <Legend color="#4b4fa6" label="PV filtered" />
+            <label className="flex items-center gap-1">
+              <input type="checkbox" checked={showTruth} onChange={(e) => set({ showTruth: e.target.checked })} />
+              <Legend color="#2f8f86" dotted label="true temp. (training aid)" />
+            </label>
+            <Legend color="#d9692b" label="OUT %" />
+          </div>
+          {engine ? <Trend buffer={engine.buffer} events={events} unit={units.temperature} showTruth={showTruth} showRaw={showRaw} /> : null}
+        </section>
+        <RunControls
+          status={status}
+          speed={speed}
+          timeS={snapshot?.timeS ?? 0}
+          seed={seed}
+          engineVersion={engineVersion}
+          onRun={(s) => act?.run(s)}
+          onPause={() => act?.pause()}
+          onStep={() => act?.step(1)}
+          onReset={() => act?.reset()}
+        />
+        {error ? (
+          <p role="alert" className="rounded-sm border border-alarm/50 bg-alarm-soft px-3 py-2 text-sm text-alarm">
+            {error}
+          </p>
+        ) : null}
+        <ResultsTable windows={windows} unit={units.temperature} />
+      </div>
+
+      <aside className="space-y-4">
+        <Faceplate
+          snapshot={snapshot}
+          unit={units.temperature}
+          highAlarmC={cutout.tripPointC - 10}
+          onSetpoint={onSetpoint}
+          onMode={onMode}
+          onManualOutput={onManualOutput}
+          onCutoutReset={() => act?.act({ type: "cutout-reset" })}
+        />
+        <DisturbancePanel onDisturb={(a) => act?.act(a)} unit={units.temperature} ambientC={definition.kind === "enclosure" ? definition.ambientC : 20} />
+        <p className="text-xs text-ink-faint">
+          Press <kbd className="num rounded-sm border border-rule-strong px-1">?</kbd> for the keyboard.
+        </p>
+      </aside>
+      {helpOpen ? <HelpOverlay onClose={() => set({ helpOpen: false })} /> : null}
+    </div>
+  );
+}
+
+function Legend({ color, label, dashed, dotted }: { color: string; label: string; dashed?: boolean; dotted?: boolean }) {
+  return (
+    <span className="flex items-center gap-1.5 text-ink-soft">
+      <svg width="18" height="6" aria-hidden="true">
+        <line x1="0" y1="3" x2="18" y2="3" stroke={color} strokeWidth="2" strokeDasharray={dashed ? "5 3" : dotted ? "2 2" : undefined} />
+      </svg>
+      {label}
+    </span>
+  );
+}

@@ -1,0 +1,73 @@
+"use client";
+/**
+ * The main thread's handle on the engine worker: sends commands, appends streamed chunks to the
+ * TraceBuffer and moves the latest snapshot, events and action log into the store.
+ */
+import type { ControllerConfigInput } from "@/sim/control/config";
+import type { OperatorActionInput } from "@/sim/drill/actions";
+import type { DrillInput } from "@/sim/drill/schema";
+import type { BenchSpeed, FromWorker, ToWorker } from "@/sim/worker/protocol";
+import { useBench } from "./store";
+import { TraceBuffer } from "./trace-buffer";
+
+export class BenchEngine {
+  readonly buffer = new TraceBuffer();
+  private worker: Worker;
+
+  constructor() {
+    this.worker = new Worker(new URL("../../sim/worker/bench.worker.ts", import.meta.url), { type: "module" });
+    this.worker.onmessage = (e: MessageEvent<FromWorker>) => this.receive(e.data);
+    this.worker.onerror = (e) => useBench.getState().set({ error: e.message || "the engine worker failed" });
+  }
+
+  private send(msg: ToWorker) {
+    this.worker.postMessage(msg);
+  }
+
+  private receive(msg: FromWorker) {
+    const store = useBench.getState();
+    switch (msg.type) {
+      case "loaded":
+        this.buffer.clear();
+        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, status: "paused" });
+        break;
+      case "chunk":
+        this.buffer.append(msg.from, msg.trace);
+        store.set({
+          snapshot: msg.snapshot,
+          events: msg.events.length ? [...store.events, ...msg.events] : store.events,
+          actionLog: msg.actions.length ? [...store.actionLog, ...msg.actions] : store.actionLog,
+        });
+        break;
+      case "status":
+        store.set({ status: msg.running ? "running" : "paused", speed: msg.speed });
+        break;
+      case "error":
+        store.set({ error: msg.message });
+        break;
+    }
+  }
+
+  load(drill: DrillInput, controller: ControllerConfigInput, seed: number) {
+    useBench.getState().set({ status: "loading" });
+    this.send({ type: "load", drill, controller, seed });
+  }
+  run(speed: BenchSpeed) {
+    this.send({ type: "run", speed });
+  }
+  pause() {
+    this.send({ type: "pause" });
+  }
+  step(samples = 1) {
+    this.send({ type: "step", samples });
+  }
+  act(action: OperatorActionInput) {
+    this.send({ type: "act", action });
+  }
+  reset() {
+    this.send({ type: "reset" });
+  }
+  dispose() {
+    this.worker.terminate();
+  }
+}

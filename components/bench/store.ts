@@ -1,0 +1,67 @@
+"use client";
+/**
+ * The Bench's client state (zustand). Per-sample data never lives here: the trace goes into
+ * TraceBuffer and the store only carries the latest snapshot (for readouts) and a version
+ * counter the trend watches outside React's render path.
+ */
+import { create } from "zustand";
+import type { ControllerConfig } from "@/sim/control/config";
+import type { DrillInput } from "@/sim/drill/schema";
+import type { SampleSnapshot, SimEvent } from "@/sim/drill/simulation";
+import type { StampedAction } from "@/sim/drill/actions";
+import type { BenchSpeed } from "@/sim/worker/protocol";
+import type { TemperatureUnit } from "@/sim/units";
+
+export interface DisplayUnits {
+  temperature: TemperatureUnit;
+  /** how Ti and Td are entered: seconds, minutes, or (Ti only) repeats per minute */
+  integral: "s" | "min" | "repeats/min";
+  derivative: "s" | "min";
+  /** gain Kc in %/°C or proportional band in % of the transmitter span */
+  gain: "kc" | "pb";
+}
+
+export interface BenchRunSetup {
+  plantRef: string;
+  plantTitle: string;
+  drill: DrillInput;
+  controller: ControllerConfig;
+  seed: number;
+}
+
+export interface BenchState {
+  setup: BenchRunSetup | null;
+  status: "loading" | "paused" | "running";
+  speed: BenchSpeed;
+  engineVersion: string;
+  sampleTimeS: number;
+  snapshot: SampleSnapshot | null;
+  events: SimEvent[];
+  actionLog: StampedAction[];
+  error: string | null;
+  units: DisplayUnits;
+  showTruth: boolean;
+  showRaw: boolean;
+  helpOpen: boolean;
+  /** applied controller configuration (what the worker runs) */
+  controller: ControllerConfig | null;
+  set: (patch: Partial<BenchState>) => void;
+}
+
+export const useBench = create<BenchState>((set) => ({
+  setup: null,
+  status: "loading",
+  speed: 60,
+  engineVersion: "",
+  sampleTimeS: 0.1,
+  snapshot: null,
+  events: [],
+  actionLog: [],
+  error: null,
+  units: { temperature: "C", integral: "s", derivative: "s", gain: "kc" },
+  showTruth: true,
+  showRaw: true,
+  helpOpen: false,
+  controller: null,
+  set: (patch) => set(patch),
+}));

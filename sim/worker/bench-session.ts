@@ -1,0 +1,62 @@
+/**
+ * One Bench run inside the worker: a Simulation plus what has already been streamed. Pure (no
+ * worker globals), so the pacing and chunking are tested in Node.
+ */
+import { controllerConfigSchema, type ControllerConfigInput } from "../control/config";
+import { operatorActionSchema, type OperatorActionInput } from "../drill/actions";
+import { drillSchema, type DrillInput } from "../drill/schema";
+import { Simulation } from "../drill/simulation";
+import type { FromWorker } from "./protocol";
+
+export class BenchSession {
+  readonly simulation: Simulation;
+  private streamed = 0;
+  private eventsStreamed = 0;
+  private actionsStreamed = 0;
+
+  constructor(drill: DrillInput, controller?: ControllerConfigInput, seed?: number) {
+    this.simulation = new Simulation(drillSchema.parse(drill), {
+      controller: controller ? controllerConfigSchema.parse(controller) : undefined,
+      seed,
+    });
+  }
+
+  get sampleTimeS(): number {
+    return this.simulation.sampleTimeS;
+  }
+
+  /** Simulate `samples` whole samples (the Bench runs past the drill's duration if asked). */
+  stepSamples(samples: number): void {
+    for (let i = 0; i < samples; i++) this.simulation.step();
+  }
+
+  /** Simulate for up to `budgetMs` of wall time, in batches; returns the samples done. */
+  runFor(budgetMs: number, now: () => number, batch = 200): number {
+    const start = now();
+    let done = 0;
+    while (now() - start < budgetMs) {
+      this.stepSamples(batch);
+      done += batch;
+    }
+    return done;
+  }
+
+  act(action: OperatorActionInput): void {
+    this.simulation.act(operatorActionSchema.parse(action));
+  }
+
+  /** Rows and events not yet streamed, as a chunk message; null when nothing is new. */
+  takeChunk(): Extract<FromWorker, { type: "chunk" }> | null {
+    const sim = this.simulation;
+    const length = sim.trace().length;
+    if (length === this.streamed) return null;
+    const from = this.streamed;
+    const trace = sim.traceChunk(from, length);
+    this.streamed = length;
+    const events = sim.events.slice(this.eventsStreamed);
+    this.eventsStreamed = sim.events.length;
+    const actions = sim.actionLog.slice(this.actionsStreamed);
+    this.actionsStreamed = sim.actionLog.length;
+    return { type: "chunk", from, trace, snapshot: sim.snapshot(), events, actions };
+  }
+}
