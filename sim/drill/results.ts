@@ -20,6 +20,7 @@ export interface WindowResultPair {
 export interface RunResults {
   engineVersion: string;
   drillId: string;
+  drillRevision: number;
   formatVersion: number;
   seed: number;
   windows: WindowResultPair[];
@@ -88,6 +89,7 @@ export function computeRunResults(trace: Trace, ctx: ResultsContext): RunResults
   return {
     engineVersion: ctx.engineVersion,
     drillId: d.id,
+    drillRevision: d.revision,
     formatVersion: d.formatVersion,
     seed: ctx.seed,
     windows: d.scoring.windows.map((w) => ({ id: w.id, label: w.label ?? w.id, kind: w.kind, weight: w.weight, ...windowPair(trace, w, ctx) })),

@@ -157,6 +157,8 @@ export const drillSchema = z
   .object({
     formatVersion: z.literal(DRILL_FORMAT_VERSION),
     id: z.string().min(1),
+    /** the instructor's revision of this drill (attempts record it; bump on every edit) */
+    revision: z.number().int().positive().default(1),
     title: z.string().min(1),
     description: z.string().default(""),
     plant: drillPlantSchema,
