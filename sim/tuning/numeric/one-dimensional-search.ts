@@ -46,3 +46,31 @@ export function goldenMin(f: (x: number) => number, a: number, b: number, iterat
   const r = goldenMax((x) => -f(x), a, b, iterations);
   return { x: r.x, f: -r.f };
 }
+
+/**
+ * Global-then-local minimisation on [a, b]: a grid of n points (linear, or logarithmic when
+ * a > 0 and `log`), then golden-section search between the best point's neighbours. Safer than
+ * golden section alone when f may have more than one dip.
+ */
+export function gridThenGoldenMin(f: (x: number) => number, a: number, b: number, n = 25, log = false): { x: number; f: number } {
+  const useLog = log && a > 0 && b > 0;
+  const map = (s: number) => (useLog ? Math.exp(s) : s);
+  const lo = useLog ? Math.log(a) : a;
+  const hi = useLog ? Math.log(b) : b;
+  const g = (s: number) => {
+    const v = f(map(s));
+    return Number.isFinite(v) ? v : Infinity;
+  };
+  let iBest = 0;
+  let fBest = Infinity;
+  const s = (i: number) => lo + ((hi - lo) * i) / (n - 1);
+  for (let i = 0; i < n; i++) {
+    const v = g(s(i));
+    if (v < fBest) {
+      fBest = v;
+      iBest = i;
+    }
+  }
+  const r = goldenMin(g, s(Math.max(0, iBest - 1)), s(Math.min(n - 1, iBest + 1)), 40);
+  return r.f <= fBest ? { x: map(r.x), f: r.f } : { x: map(s(iBest)), f: fBest };
+}

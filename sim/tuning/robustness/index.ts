@@ -1,5 +1,5 @@
 export * from "./loop";
 export * from "./frequency-response";
-export * from "./search";
+
 export * from "./margins";
 export * from "./assessment";

@@ -10,7 +10,7 @@
  */
 import { loopResponse, sensitivities, type LoopPoint } from "./frequency-response";
 import { loopTimeScales, type Loop } from "./loop";
-import { bisect, goldenMax } from "./search";
+import { bisect, goldenMax } from "../numeric/one-dimensional-search";
 
 export interface Margins {
   /** gain margin (factor); Infinity if the phase never reaches −180° */

@@ -1,0 +1,2 @@
+export * from "./one-dimensional-search";
+export * from "./nelder-mead";
