@@ -52,6 +52,16 @@ export const initialStateSchema = z
 
 export const drillEventSchema = z.discriminatedUnion("type", [
   z.object({ type: z.literal("setpoint"), timeS: time, setpointC: z.number().finite() }).strict(),
+  z
+    .object({
+      type: z.literal("setpoint-ramp"),
+      timeS: time,
+      durationS: z.number().finite().positive().describe("s over which SP moves from fromC to toC"),
+      fromC: z.number().finite(),
+      toC: z.number().finite(),
+    })
+    .strict()
+    .describe("a setpoint ramp, applied as a staircase at the controller's sample boundaries"),
   z.object({ type: z.literal("mode"), timeS: time, mode: z.enum(["auto", "manual"]) }).strict(),
   z.object({ type: z.literal("inlet-blockage"), timeS: time, percent: z.number().min(0).max(100), durationS: duration.optional() }).strict(),
   z

@@ -119,7 +119,7 @@ export class Simulation {
     const out0 = init.outPercent ?? (init.temperatures.kind === "steady" ? init.temperatures.outPercent : 0);
     this.controller = new ControllerBlock(this.controllerCfg, { out: out0, mode: init.mode, sp: init.setpointC, pv: this.plant.sensorTemperatureC() });
     this.recorder = new TraceRecorder(this.lastSample + 1, ENGINE_VERSION);
-    this.changes = expandTimeline(drill.events, this.plantDefinition);
+    this.changes = expandTimeline(drill.events, this.plantDefinition, this.sampleTimeS);
   }
 
   /** index of the next sample to be processed */

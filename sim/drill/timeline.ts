@@ -2,7 +2,9 @@
  * The drill's event timeline expanded into atomic, time-ordered changes. An event with a
  * duration yields a start change and an end change; the end returns that condition to its
  * nominal value (blockage 0 %, door shut, design ambient, nominal voltage, load taken out, no
- * extra noise, sensor healthy). At equal times ends come before starts, then file order.
+ * extra noise, sensor healthy). A setpoint ramp becomes a staircase of setpoint changes at the
+ * sample boundaries it spans, ending exactly on its target. At equal times ends come before
+ * starts, then file order.
  */
 import type { PlantDefinition } from "../plant/plant-definition";
 import type { ColdLoad, PlantConditions } from "../plant/conditions";
@@ -26,7 +28,8 @@ export interface TimedChange {
   phase: "start" | "end";
 }
 
-export function expandTimeline(events: DrillEvent[], plant: PlantDefinition): TimedChange[] {
+/** `sampleTimeS` places the steps of a setpoint ramp on the controller's sample boundaries. */
+export function expandTimeline(events: DrillEvent[], plant: PlantDefinition, sampleTimeS = 1): TimedChange[] {
   const nominalV = plant.nominalVoltageV;
   const out: TimedChange[] = [];
   events.forEach((e, i) => {
@@ -39,6 +42,18 @@ export function expandTimeline(events: DrillEvent[], plant: PlantDefinition): Ti
       case "setpoint":
         add(e.timeS, { kind: "setpoint", setpointC: e.setpointC }, "start");
         break;
+      case "setpoint-ramp": {
+        // staircase: at every sample boundary t_k in [t0, t0 + D] SP = from + (to − from)(t_k − t0)/D
+        const k0 = Math.ceil(e.timeS / sampleTimeS - 1e-9);
+        const k1 = Math.floor((e.timeS + e.durationS) / sampleTimeS + 1e-9);
+        for (let k = k0; k <= k1; k++) {
+          const t = k * sampleTimeS;
+          const f = Math.min(1, Math.max(0, (t - e.timeS) / e.durationS));
+          add(t, { kind: "setpoint", setpointC: e.fromC + (e.toC - e.fromC) * f }, "start");
+        }
+        add(e.timeS + e.durationS, { kind: "setpoint", setpointC: e.toC }, "end");
+        break;
+      }
       case "mode":
         add(e.timeS, { kind: "mode", mode: e.mode }, "start");
         break;

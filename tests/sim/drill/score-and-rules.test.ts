@@ -60,6 +60,17 @@ describe("timeline", () => {
     expect(ch[0].change).toEqual({ kind: "conditions", patch: { supplyVoltageV: 207 } });
   });
 
+  it("a setpoint ramp is a staircase at sample boundaries ending on its target", () => {
+    const d = drillSchema.parse({ ...ladder, events: [{ type: "setpoint-ramp", timeS: 100, durationS: 10, fromC: 60, toC: 70 }], durationS: 300, scoring: { windows: [{ id: "r", kind: "setpoint", startS: 100, endS: 300 }] } });
+    const tr = runDrill(d).trace;
+    const ts = d.referenceTuning.sampleTimeS;
+    expect(tr.setpointC[Math.round(99.5 / ts)]).toBe(59.3);
+    expect(tr.setpointC[Math.round(100 / ts)]).toBe(60);
+    expect(tr.setpointC[Math.round(105 / ts)]).toBeCloseTo(65, 12);
+    expect(tr.setpointC[Math.round(110 / ts)]).toBe(70);
+    expect(tr.setpointC[tr.length - 1]).toBe(70);
+  });
+
   it("a cold load lowers the temperature and the loop recovers", () => {
     const d = drillSchema.parse({
       ...ladder,
