@@ -4,16 +4,34 @@
 // Expected directions are physics of a heated enclosure (more heater power → higher steady
 // temperature at the same OUT; common practice), the numbers themselves come from sim/.
 import { act, fireEvent, render, screen, waitFor, within } from "@testing-library/react";
-import { beforeEach, describe, expect, it, vi } from "vitest";
+import type { ReactNode } from "react";
+import { SWRConfig } from "swr";
+import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import type { ActionResult } from "@/app/_lib/action";
+import type { PlantListItem, SavedRunSummary, TuningSetItem } from "@/db/bench-queries";
+import { controllerConfigSchema } from "@/sim/control/config";
+import { ENGINE_VERSION } from "@/sim/version";
 import { derivedFigures } from "@/sim/plant/derived-figures";
 import { PLANT_PRESETS } from "@/sim/plant/presets";
 
 const savePlant = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Plant saved.", id: "0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11", ref: "plant:0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11" }) as ActionResult);
 const updatePlant = vi.fn(async (): Promise<ActionResult> => ({ ok: true }));
-vi.mock("@/app/(app)/bench/actions", () => ({ savePlant: (p: ActionResult, f: FormData) => savePlant(p, f), updatePlant: () => updatePlant() }));
+const saveTuningSet = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Tuning set saved." }));
+const saveRun = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Run saved." }));
+const refused = async (): Promise<ActionResult> => ({ ok: false, error: "You are not allowed to do that." });
+vi.mock("@/app/(app)/bench/actions", () => ({
+  savePlant: (p: ActionResult, f: FormData) => savePlant(p, f),
+  updatePlant: () => updatePlant(),
+  saveTuningSet: (p: ActionResult, f: FormData) => saveTuningSet(p, f),
+  deleteTuningSet: refused,
+  saveRun: (p: ActionResult, f: FormData) => saveRun(p, f),
+  deleteRun: refused,
+}));
 
 const { PlantEditor } = await import("@/components/bench/plants/PlantEditor");
+const { PlantPicker } = await import("@/components/bench/plants/PlantPicker");
+const { TuningSets } = await import("@/components/bench/saved/TuningSets");
+const { RunHistory } = await import("@/components/bench/saved/RunHistory");
 
 const field = (label: string) => screen.getByLabelText(label) as HTMLInputElement;
 const type = (label: string, value: string) => fireEvent.change(field(label), { target: { value } });
@@ -105,5 +123,149 @@ describe("PlantEditor", () => {
     expect(payload).toMatchObject({ name: "Cabinet K-7", origin: "physical", definition: { kind: "enclosure", inletAirflowM3PerH: 30, heaterRatingW: 800 } });
     await waitFor(() => expect(onSaved).toHaveBeenCalledWith("plant:0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11", expect.objectContaining({ inletAirflowM3PerH: 30 }), "Cabinet K-7"));
     expect((await screen.findByTestId("form-status")).textContent).toBe("Plant saved.");
+  });
+});
+
+// ---- the saved-work panels beside the editor, against a stubbed route-handler API ----
+
+const freshSwr = ({ children }: { children: ReactNode }) => <SWRConfig value={{ provider: () => new Map(), dedupingInterval: 0 }}>{children}</SWRConfig>;
+
+function stubApi(routes: Record<string, unknown>) {
+  const fetchMock = vi.fn(async (url: string) => {
+    const body = routes[url];
+    return new Response(JSON.stringify(body ?? { error: "No such thing." }), { status: body ? 200 : 404, headers: { "content-type": "application/json" } });
+  });
+  vi.stubGlobal("fetch", fetchMock);
+  return fetchMock;
+}
+
+afterEach(() => vi.unstubAllGlobals());
+
+const preset = PLANT_PRESETS[0];
+const ownPlantId = "5f0c3b8e-2a41-4d7e-8f3a-6b1d9c0e7a21";
+const plantItems: PlantListItem[] = [
+  {
+    ref: `preset:${preset.id}`,
+    source: "preset",
+    id: preset.id,
+    title: preset.title,
+    description: preset.description,
+    kind: "enclosure",
+    origin: "preset",
+    shared: true,
+    ownerName: null,
+    updatedAt: null,
+    definition: preset.plant,
+    figures: { outPercent: 50, staticGainCPerPercent: 1.23, steadyStateC: 82.5, dominantTimeConstantS: 1800, apparentDeadTimeS: 95, timeTo63PercentS: 1900 },
+  },
+  {
+    ref: `plant:${ownPlantId}`,
+    source: "own",
+    id: ownPlantId,
+    title: "Cabinet K-7",
+    description: "Bay 2",
+    kind: "enclosure",
+    origin: "physical",
+    shared: false,
+    ownerName: "Owner",
+    updatedAt: "2026-11-30T10:00:00.000Z",
+    definition: { ...preset.plant, heaterRatingW: 1500 },
+    figures: null,
+  },
+];
+
+describe("PlantPicker", () => {
+  it("lists presets and the user's plants and hands over the chosen definition", async () => {
+    stubApi({ "/api/plants": { plants: plantItems } });
+    const onChange = vi.fn();
+    render(<PlantPicker value={`preset:${preset.id}`} onChange={onChange} />, { wrapper: freshSwr });
+    const select = (await screen.findByRole("combobox", { name: "Plant" })) as HTMLSelectElement;
+    await waitFor(() => expect(select.value).toBe(`preset:${preset.id}`));
+    expect(within(select).getByRole("group", { name: "Presets" })).toBeTruthy();
+    expect(within(select).getByRole("group", { name: "My plants" })).toBeTruthy();
+    expect(screen.getByTestId("plant-summary").textContent).toContain("1.23\u00a0°C/%");
+    fireEvent.change(select, { target: { value: `plant:${ownPlantId}` } });
+    expect(onChange).toHaveBeenCalledWith(`plant:${ownPlantId}`, expect.objectContaining({ heaterRatingW: 1500 }), "Cabinet K-7");
+  });
+});
+
+describe("TuningSets", () => {
+  const ref = `preset:${preset.id}`;
+  const current = controllerConfigSchema.parse({ kc: 3.5, ti: 240, pvFilterTauS: 4 });
+  const stored: TuningSetItem = { id: "9d3e2f1a-0b4c-4e5d-8a6f-7b8c9d0e1f2a", plantRef: ref, name: "Relay PI", notes: "", controller: controllerConfigSchema.parse({ kc: 5, ti: 300, td: 20 }), createdAt: "2026-11-30T10:00:00.000Z" };
+
+  it("lists, loads and saves the current tuning under a name", async () => {
+    stubApi({ [`/api/tuning-sets?plant=${encodeURIComponent(ref)}`]: { tuningSets: [stored] } });
+    const onLoad = vi.fn();
+    render(<TuningSets plantRef={ref} current={current} onLoad={onLoad} />, { wrapper: freshSwr });
+    const row = await screen.findByTestId("tuning-set");
+    expect(row.textContent).toContain("Kc 5.00\u00a0%/°C");
+    expect(row.textContent).toContain("Td 20.0\u00a0s");
+    fireEvent.click(within(row).getByRole("button", { name: "Load" }));
+    expect(onLoad).toHaveBeenCalledWith(expect.objectContaining({ kc: 5, ti: 300, td: 20, form: "standard" }));
+
+    const save = screen.getByRole("button", { name: "Save current tuning" }) as HTMLButtonElement;
+    expect(save.disabled).toBe(true); // no name yet
+    fireEvent.change(screen.getByLabelText("Name"), { target: { value: "Filter 4 s" } });
+    await act(async () => fireEvent.click(save));
+    await waitFor(() => expect(saveTuningSet).toHaveBeenCalledTimes(1));
+    expect(JSON.parse(String(saveTuningSet.mock.calls[0][1].get("payload")))).toEqual({ plantRef: ref, name: "Filter 4 s", notes: "", controller: current });
+  });
+});
+
+describe("RunHistory", () => {
+  const ref = `preset:${preset.id}`;
+  const summary = (id: string, title: string, iae: number | null): SavedRunSummary => ({
+    id,
+    plantRef: ref,
+    title,
+    createdAt: "2026-11-30T10:00:00.000Z",
+    engineVersion: ENGINE_VERSION,
+    durationS: 3600,
+    seed: 7,
+    actionCount: 3,
+    keyResults: { iae, overshootPct: 1.5, settlingTimeS: 640, trips: 0 },
+  });
+  const ids = ["1a2b3c4d-0000-4000-8000-000000000001", "1a2b3c4d-0000-4000-8000-000000000002"];
+  const full = (id: string) => ({ run: { id, plantRef: ref, title: id, createdAt: "2026-11-30T10:00:00.000Z", drill: {}, controller: {}, seed: 7, actionLog: [], results: {}, engineVersion: ENGINE_VERSION, durationS: 3600 } });
+
+  it("shows key results with units, overlays ticked runs and saves the current run", async () => {
+    const fetchMock = stubApi({
+      [`/api/runs?plant=${encodeURIComponent(ref)}`]: { runs: [summary(ids[1], "PID, filter 2 s", 812.4), summary(ids[0], "PI", null)] },
+      [`/api/runs/${ids[0]}`]: full(ids[0]),
+      [`/api/runs/${ids[1]}`]: full(ids[1]),
+    });
+    const onCompare = vi.fn();
+    const onOpen = vi.fn();
+    const currentRun = { drill: { id: "bench" }, controller: controllerConfigSchema.parse({}), seed: 11, actionLog: [{ sample: 5, type: "setpoint", setpointC: 70 }], results: { wholeRun: {} }, engineVersion: ENGINE_VERSION, durationS: 900 };
+    render(<RunHistory plantRef={ref} currentRun={currentRun} onOpen={onOpen} onCompare={onCompare} />, { wrapper: freshSwr });
+    const rows = await screen.findAllByTestId("saved-run");
+    expect(rows[0].textContent).toContain("812\u00a0°C·s");
+    expect(rows[0].textContent).toContain("1.5\u00a0%");
+    expect(rows[1].textContent).toContain("—\u00a0°C·s"); // missing result: a dash, still with its unit
+
+    const overlay = screen.getByRole("button", { name: "Overlay ticked runs" }) as HTMLButtonElement;
+    expect(overlay.disabled).toBe(true);
+    fireEvent.click(screen.getByLabelText("Tick PI for comparison"));
+    fireEvent.click(screen.getByLabelText("Tick PID, filter 2 s for comparison"));
+    await act(async () => fireEvent.click(screen.getByRole("button", { name: "Overlay 2 runs" })));
+    await waitFor(() => expect(onCompare).toHaveBeenCalledTimes(1));
+    expect(onCompare.mock.calls[0][0].map((r: { id: string }) => r.id)).toEqual([ids[0], ids[1]]);
+
+    await act(async () => fireEvent.click(within(rows[1]).getByRole("button", { name: "Open" })));
+    await waitFor(() => expect(onOpen).toHaveBeenCalledWith(expect.objectContaining({ id: ids[0], seed: 7 })));
+    expect(fetchMock).toHaveBeenCalledWith(`/api/runs/${ids[0]}`, expect.anything());
+
+    fireEvent.change(screen.getByLabelText("Title"), { target: { value: "Door-open proof" } });
+    await act(async () => fireEvent.click(screen.getByRole("button", { name: "Save this run" })));
+    await waitFor(() => expect(saveRun).toHaveBeenCalledTimes(1));
+    expect(JSON.parse(String(saveRun.mock.calls[0][1].get("payload")))).toMatchObject({ plantRef: ref, title: "Door-open proof", seed: 11, actionLog: currentRun.actionLog, engineVersion: ENGINE_VERSION });
+  });
+
+  it("cannot save before there is a run", async () => {
+    stubApi({ [`/api/runs?plant=${encodeURIComponent(ref)}`]: { runs: [] } });
+    render(<RunHistory plantRef={ref} currentRun={null} onOpen={() => {}} onCompare={() => {}} />, { wrapper: freshSwr });
+    expect(await screen.findByText("No saved runs for this plant yet.")).toBeTruthy();
+    expect((screen.getByRole("button", { name: "Save this run" }) as HTMLButtonElement).disabled).toBe(true);
   });
 });
