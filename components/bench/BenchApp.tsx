@@ -22,6 +22,12 @@ import { HelpOverlay } from "./HelpOverlay";
 import { ResultsTable } from "./ResultsTable";
 import { BENCH_SPEEDS, RunControls } from "./RunControls";
 import { useBench } from "./store";
+import { ExperimentsPanel } from "./experiments/ExperimentsPanel";
+import { ExperimentTable } from "./experiments/ExperimentTable";
+import { OverlayChart } from "./experiments/OverlayChart";
+import { TuningMap } from "./experiments/TuningMap";
+import { useExperiments } from "./experiments/use-experiments";
+import type { MapMetric } from "@/sim/experiments/tuning-map";
 
 const DEFAULT_SEED = 20261201;
 
@@ -70,6 +76,13 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   }, [engine, load]);
 
   const act = engineRef.current;
+  const experiments = useExperiments();
+  const [testsTab, setTestsTab] = useState<"relay" | "bump" | "experiments">("experiments");
+  const loadTuning = (patch: Partial<ControllerConfig>) => {
+    const cfg = controllerConfigSchema.parse({ ...controller, ...patch });
+    setController(cfg);
+    act?.act({ type: "tuning", controller: cfg });
+  };
   const onSetpoint = (spC: number) => act?.act({ type: "setpoint", setpointC: spC });
   const onMode = (mode: "auto" | "manual") => act?.act({ type: "mode", mode });
   const onManualOutput = (outPercent: number) => act?.act({ type: "manual-output", outPercent });
@@ -212,6 +225,28 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           </p>
         ) : null}
         <ResultsTable windows={windows} unit={units.temperature} />
+        {experiments.state.status !== "idle" ? (
+          <section aria-label="Experiment results" className="space-y-3 rounded-sm border border-rule bg-paper-raised p-4">
+            <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-faint">
+              Experiment · {experiments.state.kind === "map" ? "tuning map" : experiments.state.kind === "compare" ? "PI vs PID" : "sweep"} · same proof test and seed for every run
+            </h2>
+            {experiments.state.kind === "map" && experiments.state.meta?.kcAxis && experiments.state.meta.tiAxis ? (
+              <TuningMap
+                rows={experiments.state.rows}
+                kcAxis={experiments.state.meta.kcAxis}
+                tiAxis={experiments.state.meta.tiAxis}
+                metric={(experiments.state.meta.metric ?? "iae") as MapMetric}
+                current={{ kc: controller.kc, ti: controller.ti }}
+                onPick={(kc, ti) => loadTuning({ kc, ti })}
+              />
+            ) : (
+              <>
+                <OverlayChart rows={experiments.state.rows} />
+                <ExperimentTable rows={experiments.state.rows} onLoad={(r) => loadTuning(r.controller)} />
+              </>
+            )}
+          </section>
+        ) : null}
       </div>
 
       <aside className="space-y-4">
@@ -225,6 +260,26 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           onCutoutReset={() => act?.act({ type: "cutout-reset" })}
         />
         <DisturbancePanel onDisturb={(a) => act?.act(a)} unit={units.temperature} ambientC={definition.kind === "enclosure" ? definition.ambientC : 20} />
+        <section aria-label="Tests and experiments" className="rounded-sm border border-rule bg-paper-raised p-4">
+          <div role="tablist" aria-label="Tests" className="mb-3 flex gap-4 text-sm">
+            {(
+              [
+                ["relay", "Relay test"],
+                ["bump", "Bump test"],
+                ["experiments", "Experiments"],
+              ] as const
+            ).map(([id, label]) => (
+              <button key={id} type="button" role="tab" aria-selected={testsTab === id} onClick={() => setTestsTab(id)} className={`border-b-2 pb-1 ${testsTab === id ? "border-trace-out font-semibold" : "border-transparent text-ink-soft"}`}>
+                {label}
+              </button>
+            ))}
+          </div>
+          {testsTab === "experiments" ? (
+            <ExperimentsPanel baseDrill={drill} controller={controller} seed={seed} state={experiments.state} start={experiments.start} cancel={experiments.cancel} />
+          ) : (
+            <p className="text-sm text-ink-soft">Bring the loop near its operating point first (manual, or a settled auto run).</p>
+          )}
+        </section>
         <p className="text-xs text-ink-faint">
           Press <kbd className="num rounded-sm border border-rule-strong px-1">?</kbd> for the keyboard.
         </p>

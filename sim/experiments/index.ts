@@ -1,0 +1,4 @@
+export * from "./experiment-drill";
+export * from "./variants";
+export * from "./sweep";
+export * from "./tuning-map";
