@@ -22,6 +22,7 @@ import { HelpOverlay } from "./HelpOverlay";
 import { ResultsTable } from "./ResultsTable";
 import { BENCH_SPEEDS, RunControls } from "./RunControls";
 import { useBench } from "./store";
+import { makeReplayBundle } from "@/sim/drill/replay-bundle";
 import { ExperimentsPanel } from "./experiments/ExperimentsPanel";
 import { ExperimentTable } from "./experiments/ExperimentTable";
 import { OverlayChart } from "./experiments/OverlayChart";
@@ -63,8 +64,10 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   }, []);
 
   // (re)load when the plant changes; tuning changes are applied live instead
+  const startController = useRef<ControllerConfig>(controller);
   const load = useCallback(
     (cfg: ControllerConfig) => {
+      startController.current = cfg;
       engineRef.current?.load(benchDrill({ plant, title: plantTitle, setpointC, reference: cfg, seed }), cfg, seed);
     },
     [plant, plantTitle, setpointC, seed],
@@ -76,6 +79,25 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   }, [engine, load]);
 
   const act = engineRef.current;
+  const [exportPending, setExportPending] = useState(false);
+  const fingerprint = useBench((s) => s.fingerprint);
+  useEffect(() => {
+    if (!exportPending || !fingerprint) return;
+    setExportPending(false);
+    const s = useBench.getState();
+    const bundle = makeReplayBundle({ engineVersion: s.engineVersion, drill, controller: startController.current, seed, actions: s.actionLog, rows: fingerprint.rows, fingerprint: fingerprint.value });
+    const url = URL.createObjectURL(new Blob([JSON.stringify(bundle, null, 2)], { type: "application/json" }));
+    const a = document.createElement("a");
+    a.href = url;
+    a.download = "loopwright-replay.json";
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(url), 1000);
+  }, [exportPending, fingerprint, drill, seed]);
+  const exportReplay = () => {
+    useBench.getState().set({ fingerprint: null });
+    setExportPending(true);
+    act?.requestFingerprint();
+  };
   const experiments = useExperiments();
   const [testsTab, setTestsTab] = useState<"relay" | "bump" | "experiments">("experiments");
   const loadTuning = (patch: Partial<ControllerConfig>) => {
@@ -219,6 +241,13 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           onStep={() => act?.step(1)}
           onReset={() => act?.reset()}
         />
+        <p className="-mt-2 text-right text-xs text-ink-faint">
+          {fingerprint ? <span className="num mr-3" data-testid="trace-fingerprint">trace {fingerprint.value} · {fingerprint.rows} samples</span> : null}
+          <button type="button" onClick={exportReplay} className="underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+            Export replay file
+          </button>{" "}
+          (re-run it with <code className="num">npm run sim -- replay FILE</code>)
+        </p>
         {error ? (
           <p role="alert" className="rounded-sm border border-alarm/50 bg-alarm-soft px-3 py-2 text-sm text-alarm">
             {error}

@@ -29,7 +29,7 @@ export class BenchEngine {
     switch (msg.type) {
       case "loaded":
         this.buffer.clear();
-        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, status: "paused" });
+        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, fingerprint: null, status: "paused" });
         break;
       case "chunk":
         this.buffer.append(msg.from, msg.trace);
@@ -41,6 +41,9 @@ export class BenchEngine {
         break;
       case "status":
         store.set({ status: msg.running ? "running" : "paused", speed: msg.speed });
+        break;
+      case "fingerprint":
+        store.set({ fingerprint: { rows: msg.rows, value: msg.value } });
         break;
       case "error":
         store.set({ error: msg.message });
@@ -63,6 +66,9 @@ export class BenchEngine {
   }
   act(action: OperatorActionInput) {
     this.send({ type: "act", action });
+  }
+  requestFingerprint() {
+    this.send({ type: "fingerprint" });
   }
   reset() {
     this.send({ type: "reset" });

@@ -45,6 +45,8 @@ export interface BenchState {
   helpOpen: boolean;
   /** applied controller configuration (what the worker runs) */
   controller: ControllerConfig | null;
+  /** fingerprint of the worker's trace, on request (for replay checks) */
+  fingerprint: { rows: number; value: string } | null;
   set: (patch: Partial<BenchState>) => void;
 }
 
@@ -63,5 +65,6 @@ export const useBench = create<BenchState>((set) => ({
   showRaw: true,
   helpOpen: false,
   controller: null,
+  fingerprint: null,
   set: (patch) => set(patch),
 }));

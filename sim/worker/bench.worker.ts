@@ -3,6 +3,7 @@
  * The Bench's engine worker: runs a BenchSession at the chosen speed and streams trace chunks
  * back about 20 times a second. The main thread never simulates.
  */
+import { traceFingerprint } from "../drill/trace-hash";
 import { BenchSession } from "./bench-session";
 import { transferablesOf, type BenchSpeed, type FromWorker, type ToWorker } from "./protocol";
 
@@ -93,6 +94,12 @@ self.onmessage = (e: MessageEvent<ToWorker>) => {
         session?.stepSamples(Math.max(1, Math.floor(msg.samples)));
         flush();
         break;
+      case "fingerprint": {
+        if (!session) break;
+        const trace = session.simulation.trace();
+        post({ type: "fingerprint", rows: trace.length, value: traceFingerprint(trace) });
+        break;
+      }
       case "act":
         session?.act(msg.action);
         if (!running) {

@@ -17,12 +17,14 @@ export type ToWorker =
   | { type: "pause" }
   | { type: "step"; samples: number }
   | { type: "act"; action: OperatorActionInput }
-  | { type: "reset" };
+  | { type: "reset" }
+  | { type: "fingerprint" };
 
 export type FromWorker =
   | { type: "loaded"; engineVersion: string; sampleTimeS: number; seed: number }
   | { type: "chunk"; from: number; trace: Trace; snapshot: SampleSnapshot; events: SimEvent[]; actions: StampedAction[] }
   | { type: "status"; running: boolean; speed: BenchSpeed }
+  | { type: "fingerprint"; rows: number; value: string }
   | { type: "error"; message: string };
 
 export const TRACE_ARRAY_KEYS = [
