@@ -5,14 +5,15 @@
  * cancel; results appear in the middle column.
  */
 import { useState } from "react";
-import type { ControllerConfig } from "@/sim/control/config";
+import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
+import type { Variant } from "@/sim/experiments/variants";
 import type { DrillInput } from "@/sim/drill/schema";
 import { experimentDrill, type ProofTest } from "@/sim/experiments/experiment-drill";
 import { parseValueList, piVersusPidVariants, SWEEP_PARAMETERS, sweepVariants, type SweepParameter } from "@/sim/experiments/sweep";
 import { geometricAxis, MAP_METRICS, mapVariants, type MapMetric } from "@/sim/experiments/tuning-map";
 import type { ExperimentState } from "./use-experiments";
 
-type Start = (kind: ExperimentState["kind"], drill: DrillInput, variants: ReturnType<typeof sweepVariants>, seed: number, meta?: ExperimentState["meta"]) => void;
+type Start = (kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], seed: number, meta?: ExperimentState["meta"]) => void;
 
 export function ExperimentsPanel({ baseDrill, controller, seed, state, start, cancel }: { baseDrill: DrillInput; controller: ControllerConfig; seed: number; state: ExperimentState; start: Start; cancel: () => void }) {
   const [tab, setTab] = useState<"sweep" | "compare" | "map">("sweep");
@@ -27,7 +28,22 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
   const [gridN, setGridN] = useState("20");
   const [spread, setSpread] = useState("4");
   const [error, setError] = useState<string | null>(null);
+  const [lastRun, setLastRun] = useState<{ drill: DrillInput; variants: Variant[] } | null>(null);
   const running = state.status === "running";
+  const launch = (kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], meta?: ExperimentState["meta"]) => {
+    setLastRun({ drill, variants });
+    start(kind, drill, variants, seed, meta);
+  };
+  const exportExperiment = () => {
+    if (!lastRun) return;
+    const doc = { drill: lastRun.drill, seed, runs: lastRun.variants.map((v) => ({ label: v.label, controller: controllerConfigSchema.parse(v.controller) })) };
+    const url = URL.createObjectURL(new Blob([JSON.stringify(doc, null, 2)], { type: "application/json" }));
+    const a = document.createElement("a");
+    a.href = url;
+    a.download = "loopwright-experiment.json";
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(url), 1000);
+  };
 
   const proofDrill = (): DrillInput | null => {
     const step = Number(stepC);
@@ -50,11 +66,11 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
     if (tab === "sweep") {
       const parsed = parseValueList(valuesText);
       if (!parsed.ok) return void fail(parsed.error);
-      start("sweep", drill, sweepVariants(controller, parameter, parsed.values), seed);
+      launch("sweep", drill, sweepVariants(controller, parameter, parsed.values));
     } else if (tab === "compare") {
       const nums = [pid.kc, pid.ti, pid.td, pi.kc, pi.ti].map(Number);
       if (nums.some((v) => !Number.isFinite(v) || v < 0)) return void fail("Enter non-negative numbers for both tunings.");
-      start("compare", drill, piVersusPidVariants(controller, { kc: nums[0], ti: nums[1], td: nums[2] }, { kc: nums[3], ti: nums[4] }), seed);
+      launch("compare", drill, piVersusPidVariants(controller, { kc: nums[0], ti: nums[1], td: nums[2] }, { kc: nums[3], ti: nums[4] }));
     } else {
       const n = Number(gridN);
       const s = Number(spread);
@@ -63,7 +79,7 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
       if (!(controller.kc > 0 && controller.ti > 0)) return void fail("The tuning map needs a current Kc and Ti above 0.");
       const kcAxis = geometricAxis(controller.kc, s, n);
       const tiAxis = geometricAxis(controller.ti, s, n);
-      start("map", drill, mapVariants(controller, kcAxis, tiAxis), seed, { kcAxis, tiAxis, metric });
+      launch("map", drill, mapVariants(controller, kcAxis, tiAxis), { kcAxis, tiAxis, metric });
     }
   };
 
@@ -172,6 +188,11 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
             {state.elapsedMs != null ? ` · ${(state.elapsedMs / 1000).toFixed(1)} s` : ""}
             {state.error ? ` · ${state.error}` : ""}
           </p>
+          {state.status === "done" && lastRun ? (
+            <button type="button" onClick={exportExperiment} className="mt-1 text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+              Export the experiment (drill and controllers, JSON) for the CLI
+            </button>
+          ) : null}
         </div>
       ) : null}
     </div>
