@@ -22,12 +22,13 @@ import { hashPassword } from "@/app/_lib/password";
 import { newUserId } from "@/app/_lib/tokens";
 import { plantByRef, plantFor, plantsFor, runFor, runsFor, tuningSetsFor } from "@/db/bench-queries";
 import { getDb } from "@/db/client";
-import { organizations, plants, savedRuns, users } from "@/db/schema";
+import { organizations, plants, savedRuns, sessions, users } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { runDrill } from "@/sim/drill/run-drill";
 import type { DrillInput } from "@/sim/drill/schema";
 import { PLANT_PRESETS } from "@/sim/plant/presets";
 import ladder from "@/sim/examples/setpoint-ladder.json";
+import { randomBytes } from "node:crypto";
 import { uniqueEmail } from "./helpers";
 
 const db = () => getDb();
@@ -290,5 +291,68 @@ describe("saved runs", () => {
     await deletePlant(owner, plant.id);
     expect(await tuningSetsFor(owner, plant.ref)).toHaveLength(0);
     expect(await runsFor(owner, plant.ref)).toHaveLength(0);
+  });
+});
+
+// The route handlers over HTTP against the running production build (tests/run-all.ts starts it
+// and sets E2E_BASE_URL). A session row stands in for a sign-in: Lucia's cookie carries its id.
+describe.skipIf(!process.env.E2E_BASE_URL)("route handlers", () => {
+  const base = process.env.E2E_BASE_URL!;
+  const cookies = new Map<string, string>();
+  async function cookieOf(user: BenchUser) {
+    if (!cookies.has(user.id)) {
+      const id = randomBytes(20).toString("hex");
+      await db().insert(sessions).values({ id, userId: user.id, expiresAt: new Date(Date.now() + 3_600_000) });
+      cookies.set(user.id, `loopwright_session=${id}`);
+    }
+    return cookies.get(user.id)!;
+  }
+  async function get(path: string, user?: BenchUser) {
+    const res = await fetch(`${base}${path}`, { headers: user ? { cookie: await cookieOf(user) } : {}, redirect: "manual" });
+    return { status: res.status, body: (await res.json()) as Record<string, unknown> };
+  }
+
+  it("answer 401 without a session, 400 without a plant, and only the rows the user may read", async () => {
+    const privatePlant = await createPlant(owner, plantInput("HTTP private rig"));
+    const sharedPlant = await createPlant(owner, plantInput("HTTP shared rig"));
+    await setPlantShared(owner, sharedPlant.id, true);
+    const run = await createRun(owner, {
+      plantRef: sharedPlant.ref,
+      title: "HTTP run",
+      drill: ladder,
+      controller: { kc: 4, ti: 300 },
+      seed: 99,
+      actionLog: [{ sample: 10, type: "setpoint", setpointC: 65 }],
+      results: {},
+      engineVersion: "1.0.0",
+      durationS: 7500,
+    });
+
+    expect(await get("/api/plants")).toEqual({ status: 401, body: { error: "Sign in first." } });
+    expect((await get(`/api/runs/${run.id}`)).status).toBe(401);
+
+    const refs = async (u: BenchUser) => ((await get("/api/plants", u)).body.plants as { ref: string }[]).map((p) => p.ref);
+    expect(await refs(owner)).toEqual(expect.arrayContaining([privatePlant.ref, sharedPlant.ref, "preset:benchtop-curing-cabinet"]));
+    expect(await refs(colleague)).toContain(sharedPlant.ref);
+    expect(await refs(colleague)).not.toContain(privatePlant.ref);
+    expect(await refs(outsider)).not.toContain(sharedPlant.ref);
+    expect((await get(`/api/plants/${privatePlant.id}`, colleague)).status).toBe(404);
+    expect((await get(`/api/plants/${sharedPlant.id}`, outsider)).status).toBe(404);
+    expect((await get(`/api/plants/${sharedPlant.id}`, colleague)).body.plant).toMatchObject({ ref: sharedPlant.ref, source: "shared" });
+    expect((await get("/api/plants/walk-in-drying-room", outsider)).status).toBe(200);
+
+    expect((await get("/api/tuning-sets", owner)).status).toBe(400);
+    expect((await get("/api/runs?plant=rig-7", owner)).status).toBe(400);
+    const listed = (await get(`/api/runs?plant=${encodeURIComponent(sharedPlant.ref)}`, owner)).body.runs as Record<string, unknown>[];
+    expect(listed.map((r) => r.id)).toEqual([run.id]);
+    expect(listed[0]).not.toHaveProperty("actionLog");
+    expect((await get(`/api/runs?plant=${encodeURIComponent(sharedPlant.ref)}`, colleague)).body.runs).toEqual([]);
+
+    const full = await get(`/api/runs/${run.id}`, owner);
+    expect(full.status).toBe(200);
+    expect(full.body.run).toMatchObject({ id: run.id, seed: 99, engineVersion: "1.0.0", actionLog: [{ sample: 10, type: "setpoint", setpointC: 65 }] });
+    expect(await get(`/api/runs/${run.id}`, colleague)).toEqual({ status: 404, body: { error: "No such saved run." } });
+    expect((await get(`/api/runs/${run.id}`, outsider)).status).toBe(404);
+    expect((await get("/api/runs/not-a-uuid", owner)).status).toBe(404);
   });
 });
