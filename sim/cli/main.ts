@@ -31,6 +31,9 @@ Commands:
   validate <drill.json>   Check a drill against the format; prints "valid" or the bad fields.
   schema [--out FILE]     Print (or write) the drill format's JSON Schema.
   presets                 List the plant presets with their derived figures at 50 % output.
+  replay <replay.json>    Re-run a replay file exported from the Bench (drill, controller, seed,
+                          action log); prints the trace fingerprint, whether it matches the
+                          file's, and the results. Exit 1 when the fingerprints differ.
   help, --help, -h        Show this text.
 
 Exit status: 0 success; 1 usage error; 2 invalid or unreadable input file.
@@ -158,14 +161,27 @@ function main(argv: string[]): number {
   }
 }
 
-try {
-  process.exitCode = main(process.argv.slice(2));
-} catch (e) {
-  if (e instanceof CliError) {
-    process.stderr.write(`loopwright sim: ${e.message}\n`);
-    process.exitCode = e.code;
-  } else {
-    process.stderr.write(`loopwright sim: ${(e as Error).stack ?? e}\n`);
-    process.exitCode = 3;
-  }
+// Commands with their own modules (and their own options) in sim/cli/commands/.
+const MODULE_COMMANDS: Record<string, () => Promise<(argv: string[]) => Promise<number>>> = {
+  replay: async () => (await import("./commands/replay")).runReplayCommand,
+};
+
+async function entry(argv: string[]): Promise<number> {
+  const load = MODULE_COMMANDS[argv[0] ?? ""];
+  return load ? (await load())(argv.slice(1)) : main(argv);
 }
+
+entry(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (e) => {
+    if (e instanceof CliError) {
+      process.stderr.write(`loopwright sim: ${e.message}\n`);
+      process.exitCode = e.code;
+    } else {
+      process.stderr.write(`loopwright sim: ${(e as Error).stack ?? e}\n`);
+      process.exitCode = 3;
+    }
+  },
+);
