@@ -125,6 +125,29 @@ export const runInputSchema = z.object({
 });
 export type RunInput = z.input<typeof runInputSchema>;
 
+/** A form field carrying one JSON document (forms post FormData; the hidden field is `payload`),
+ * at most `maxChars` long, parsed and validated with `schema`; its first problem is the message. */
+export function jsonPayloadField<S extends z.ZodType>(schema: S, maxChars: number) {
+  return z
+    .string({ error: "Nothing was sent." })
+    .max(maxChars, "This is too large to save.")
+    .transform((text, ctx): z.output<S> => {
+      let json: unknown;
+      try {
+        json = JSON.parse(text);
+      } catch {
+        ctx.addIssue({ code: "custom", message: "The form sent something that is not JSON." });
+        return z.NEVER;
+      }
+      const r = schema.safeParse(json);
+      if (!r.success) {
+        ctx.addIssue({ code: "custom", message: firstIssue(r.error) });
+        return z.NEVER;
+      }
+      return r.data;
+    });
+}
+
 function validated<S extends z.ZodType>(schema: S, input: unknown): z.output<S> {
   const r = schema.safeParse(input);
   if (!r.success) throw new ActionRefused(firstIssue(r.error));

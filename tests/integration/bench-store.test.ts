@@ -5,7 +5,8 @@
 // are common practice (OWASP Authorization Cheat Sheet, from memory).
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { ActionRefused } from "@/app/_lib/action";
+import { z } from "zod";
+import { ActionRefused, fieldErrorsOf, formToObject } from "@/app/_lib/action";
 import {
   countOwnedRows,
   createPlant,
@@ -14,6 +15,8 @@ import {
   deletePlant,
   deleteRun,
   deleteTuningSet,
+  jsonPayloadField,
+  plantInputSchema,
   setPlantShared,
   updatePlant,
   type BenchUser,
@@ -71,6 +74,32 @@ const cabinet = () => ({
 });
 
 const plantInput = (name: string) => ({ name, description: "Bay 2 drying cabinet", definition: cabinet() });
+
+describe("the payload field of the actions' forms", () => {
+  // the same parse defineAction does: FormData → object → zod; the first message is what the form shows
+  const form = z.object({ payload: jsonPayloadField(plantInputSchema, 2000) });
+  const parse = (payload: string) => {
+    const fd = new FormData();
+    fd.set("payload", payload);
+    const r = form.safeParse(formToObject(fd));
+    return r.success ? { ok: true as const, data: r.data } : { ok: false as const, error: Object.values(fieldErrorsOf(r.error))[0] };
+  };
+
+  it("parses a valid document and fills the engine's defaults", () => {
+    const r = parse(JSON.stringify(plantInput("Cabinet K-9")));
+    expect(r.ok && r.data.payload.definition).toMatchObject({ kind: "enclosure", nominalVoltageV: 230, pressurePa: 101325 });
+  });
+
+  it("answers one clear message for broken JSON, a bad field, an oversized or a missing payload", () => {
+    expect(parse("{not json")).toEqual({ ok: false, error: "The form sent something that is not JSON." });
+    expect(parse(JSON.stringify({ ...plantInput("x"), definition: { ...cabinet(), heaterRatingW: 0 } }))).toEqual({
+      ok: false,
+      error: expect.stringMatching(/^definition: The plant definition is not valid — heaterRatingW: /),
+    });
+    expect(parse(JSON.stringify({ ...plantInput("x"), description: "y".repeat(3000) }))).toEqual({ ok: false, error: "This is too large to save." });
+    expect(form.safeParse(formToObject(new FormData())).success).toBe(false);
+  });
+});
 
 describe("plants", () => {
   it("are changed, shared and deleted by their owner only", async () => {

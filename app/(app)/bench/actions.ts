@@ -14,7 +14,7 @@ import {
   deletePlant as removePlant,
   deleteRun as removeRun,
   deleteTuningSet as removeTuningSet,
-  firstIssue,
+  jsonPayloadField,
   plantInputSchema,
   plantUpdateSchema,
   runInputSchema,
@@ -26,29 +26,7 @@ import {
 /** A successful save also names the new row, so the form can select it. */
 export type SavedResult = ActionResult & { id?: string; ref?: string };
 
-/** The hidden `payload` field: JSON text, at most `maxChars`, parsed and validated with `schema`. */
-function payloadOf<S extends z.ZodType>(schema: S, maxChars: number) {
-  return z.object({
-    payload: z
-      .string({ error: "Nothing was sent." })
-      .max(maxChars, "This is too large to save.")
-      .transform((text, ctx): z.output<S> => {
-        let json: unknown;
-        try {
-          json = JSON.parse(text);
-        } catch {
-          ctx.addIssue({ code: "custom", message: "The form sent something that is not JSON." });
-          return z.NEVER;
-        }
-        const r = schema.safeParse(json);
-        if (!r.success) {
-          ctx.addIssue({ code: "custom", message: firstIssue(r.error) });
-          return z.NEVER;
-        }
-        return r.data;
-      }),
-  });
-}
+const payloadOf = <S extends z.ZodType>(schema: S, maxChars: number) => z.object({ payload: jsonPayloadField(schema, maxChars) });
 
 const idForm = (what: string) => z.object({ id: z.uuid(`Unknown ${what}.`) });
 const signedIn = {};
