@@ -1,0 +1,3 @@
+export * from "./describing-function";
+export * from "./fopdt-relations";
+export * from "./relay-test";
