@@ -18,6 +18,7 @@ const savePlant = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<Ac
 const updatePlant = vi.fn(async (): Promise<ActionResult> => ({ ok: true }));
 const saveTuningSet = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Tuning set saved." }));
 const saveRun = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Run saved." }));
+const setPlantShared = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Plant shared within your organisation." }));
 const refused = async (): Promise<ActionResult> => ({ ok: false, error: "You are not allowed to do that." });
 vi.mock("@/app/(app)/bench/actions", () => ({
   savePlant: (p: ActionResult, f: FormData) => savePlant(p, f),
@@ -26,6 +27,8 @@ vi.mock("@/app/(app)/bench/actions", () => ({
   deleteTuningSet: refused,
   saveRun: (p: ActionResult, f: FormData) => saveRun(p, f),
   deleteRun: refused,
+  setPlantShared: (p: ActionResult, f: FormData) => setPlantShared(p, f),
+  deletePlant: refused,
 }));
 
 const { PlantEditor } = await import("@/components/bench/plants/PlantEditor");
@@ -186,6 +189,18 @@ describe("PlantPicker", () => {
     expect(screen.getByTestId("plant-summary").textContent).toContain("1.23\u00a0°C/%");
     fireEvent.change(select, { target: { value: `plant:${ownPlantId}` } });
     expect(onChange).toHaveBeenCalledWith(`plant:${ownPlantId}`, expect.objectContaining({ heaterRatingW: 1500 }), "Cabinet K-7");
+  });
+
+  it("offers sharing to the owner of the chosen plant only", async () => {
+    stubApi({ "/api/plants": { plants: plantItems } });
+    const { rerender } = render(<PlantPicker value={`preset:${preset.id}`} onChange={() => {}} />, { wrapper: freshSwr });
+    await screen.findByTestId("plant-summary");
+    expect(screen.queryByRole("button", { name: /share in the organisation/ })).toBeNull();
+    rerender(<PlantPicker value={`plant:${ownPlantId}`} onChange={() => {}} />);
+    await act(async () => fireEvent.click(await screen.findByRole("button", { name: "Private · share in the organisation" })));
+    await waitFor(() => expect(setPlantShared).toHaveBeenCalledTimes(1));
+    const form = setPlantShared.mock.calls[0][1];
+    expect([form.get("id"), form.get("shared")]).toEqual([ownPlantId, "true"]);
   });
 });
 

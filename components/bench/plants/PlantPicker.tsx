@@ -1,8 +1,12 @@
 "use client";
 // Choose the Bench's plant: the engine's presets, the user's own plants and plants shared within
 // the organisation, fetched with SWR from /api/plants, with the chosen plant's key figures.
+import { useActionState, useEffect } from "react";
 import useSWR from "swr";
+import { deletePlant, setPlantShared } from "@/app/(app)/bench/actions";
+import type { ActionResult } from "@/app/_lib/action";
 import type { PlantListItem } from "@/db/bench-queries";
+import { FormOutcome } from "@/components/forms/ActionForm";
 import type { PlantDefinition } from "@/sim/plant/plant-definition";
 import { Duration, Qty, fetchJson } from "./format";
 
@@ -12,6 +16,8 @@ export interface PlantPickerProps {
   /** the chosen plant's reference: "preset:<id>" or "plant:<uuid>" */
   value: string;
   onChange(ref: string, definition: PlantDefinition, title: string): void;
+  /** optional: offered for the user's own plants (open the PlantEditor with it) */
+  onEdit?(plant: PlantListItem): void;
 }
 
 const GROUPS: { source: PlantListItem["source"]; label: string }[] = [
@@ -25,8 +31,8 @@ export function usePlants() {
   return useSWR<{ plants: PlantListItem[] }>(PLANTS_KEY, fetchJson);
 }
 
-export function PlantPicker({ value, onChange }: PlantPickerProps) {
-  const { data, error, isLoading } = usePlants();
+export function PlantPicker({ value, onChange, onEdit }: PlantPickerProps) {
+  const { data, error, isLoading, mutate } = usePlants();
   const items = data?.plants ?? [];
   const chosen = items.find((p) => p.ref === value) ?? null;
 
@@ -66,6 +72,19 @@ export function PlantPicker({ value, onChange }: PlantPickerProps) {
         </p>
       ) : null}
       {chosen ? <PlantSummary item={chosen} /> : null}
+      {chosen?.source === "own" ? (
+        <OwnPlantControls
+          key={chosen.ref}
+          item={chosen}
+          onEdit={onEdit}
+          onChanged={() => void mutate()}
+          onDeleted={() => {
+            const fallback = items.find((p) => p.source === "preset");
+            if (fallback) onChange(fallback.ref, fallback.definition, fallback.title);
+            void mutate();
+          }}
+        />
+      ) : null}
     </div>
   );
 }
@@ -98,6 +117,53 @@ export function PlantSummary({ item }: { item: PlantListItem }) {
       ) : (
         <p className="text-xs text-ink-faint">No derived figures for this plant.</p>
       )}
+    </div>
+  );
+}
+
+type Action = (previous: ActionResult, form: FormData) => Promise<ActionResult>;
+
+/** Share within the organisation, edit, delete: for the owner of the chosen plant. */
+function OwnPlantControls({ item, onEdit, onChanged, onDeleted }: { item: PlantListItem; onEdit?(p: PlantListItem): void; onChanged(): void; onDeleted(): void }) {
+  const [shareState, shareAction, sharing] = useActionState<ActionResult, FormData>(setPlantShared as Action, { ok: true });
+  const [deleteState, deleteAction, deleting] = useActionState<ActionResult, FormData>(deletePlant as Action, { ok: true });
+  useEffect(() => {
+    if (shareState.ok && shareState.message) onChanged();
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [shareState]);
+  useEffect(() => {
+    if (deleteState.ok && deleteState.message) onDeleted();
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [deleteState]);
+  return (
+    <div className="space-y-2 border-t border-rule pt-2 text-xs">
+      <div className="flex flex-wrap items-center gap-3">
+        <form action={shareAction}>
+          <input type="hidden" name="id" value={item.id} />
+          <input type="hidden" name="shared" value={item.shared ? "false" : "true"} />
+          <button type="submit" disabled={sharing} className="text-ink-soft hover:text-ink disabled:opacity-50">
+            {item.shared ? "Shared in the organisation · make private" : "Private · share in the organisation"}
+          </button>
+        </form>
+        {onEdit ? (
+          <button type="button" onClick={() => onEdit(item)} className="text-ink-soft hover:text-ink">
+            Edit
+          </button>
+        ) : null}
+        <form
+          action={deleteAction}
+          onSubmit={(e) => {
+            if (!window.confirm(`Delete "${item.title}" with your tuning sets and saved runs for it?`)) e.preventDefault();
+          }}
+        >
+          <input type="hidden" name="id" value={item.id} />
+          <button type="submit" disabled={deleting} className="text-ink-faint hover:text-alarm disabled:opacity-50">
+            Delete plant
+          </button>
+        </form>
+      </div>
+      {!shareState.ok ? <FormOutcome state={shareState} /> : null}
+      {!deleteState.ok ? <FormOutcome state={deleteState} /> : null}
     </div>
   );
 }
