@@ -167,9 +167,11 @@ export async function tuningSetsFor(user: BenchReader, plantRef: string): Promis
 // ---- saved runs ----
 
 export interface RunKeyResults {
-  /** whole run, on the true temperature */
+  /** on the true temperature: IAE summed over the drill's scoring windows (whole run when it has none), °C·s */
   iae: number | null;
+  /** the largest overshoot among the setpoint windows, % */
   overshootPct: number | null;
+  /** the longest settling time among the setpoint windows, s (null when one never settled or none was scored) */
   settlingTimeS: number | null;
   /** safety trips recorded in the run */
   trips: number;
@@ -188,11 +190,24 @@ export interface SavedRunSummary {
 }
 
 const num = z.number().nullable().optional().catch(null);
-const wholeRunSchema = z.looseObject({ iae: num, overshootPct: num, settlingTimeS: num }).nullable().catch(null);
+const measuresSchema = z.looseObject({ kind: z.string().nullable().optional().catch(null), iae: num, overshootPct: num, settlingTimeS: num });
+const windowsSchema = z.array(measuresSchema).nullable().catch(null);
 
-export function keyResultsOf(whole: unknown, trips: number): RunKeyResults {
-  const w = wholeRunSchema.parse(whole);
-  return { iae: w?.iae ?? null, overshootPct: w?.overshootPct ?? null, settlingTimeS: w?.settlingTimeS ?? null, trips };
+/** Key results from the per-window measures (and the whole run's, for a run without windows). */
+export function keyResultsOf(windows: unknown, whole: unknown, trips: number): RunKeyResults {
+  const ws = windowsSchema.parse(windows) ?? [];
+  const w = measuresSchema.nullable().catch(null).parse(whole);
+  if (ws.length === 0) return { iae: w?.iae ?? null, overshootPct: w?.overshootPct ?? null, settlingTimeS: w?.settlingTimeS ?? null, trips };
+  const iaes = ws.map((x) => x.iae);
+  const steps = ws.filter((x) => x.kind === "setpoint");
+  const overshoots = steps.map((x) => x.overshootPct).filter((x): x is number => typeof x === "number");
+  const settling = steps.map((x) => x.settlingTimeS);
+  return {
+    iae: iaes.every((x) => typeof x === "number") ? (iaes as number[]).reduce((a, b) => a + b, 0) : null,
+    overshootPct: overshoots.length ? Math.max(...overshoots) : null,
+    settlingTimeS: settling.length && settling.every((x) => typeof x === "number") ? Math.max(...(settling as number[])) : null,
+    trips,
+  };
 }
 
 /** The user's own saved runs of a plant, newest first; without the drill, controller or action log. */
@@ -208,13 +223,15 @@ export async function runsFor(user: BenchReader, plantRef: string, limit = 200):
       seed: savedRuns.seed,
       actionCount: sql<number>`jsonb_array_length(${savedRuns.actionLog})`.mapWith(Number),
       whole: sql<unknown>`${savedRuns.results} #> '{wholeRun,trueTemperature}'`,
+      // only the three measures of each window on the true temperature, not the windows in full
+      windows: sql<unknown>`(select jsonb_agg(jsonb_build_object('kind', w -> 'kind', 'iae', w #> '{trueTemperature,iae}', 'overshootPct', w #> '{trueTemperature,overshootPct}', 'settlingTimeS', w #> '{trueTemperature,settlingTimeS}')) from jsonb_array_elements(case when jsonb_typeof(${savedRuns.results} -> 'windows') = 'array' then ${savedRuns.results} -> 'windows' else '[]'::jsonb end) as w)`,
       trips: sql<number>`coalesce(jsonb_array_length(case when jsonb_typeof(${savedRuns.results} -> 'safetyTrips') = 'array' then ${savedRuns.results} -> 'safetyTrips' end), 0)`.mapWith(Number),
     })
     .from(savedRuns)
     .where(and(eq(savedRuns.ownerId, user.id), eq(savedRuns.plantRef, plantRef)))
     .orderBy(desc(savedRuns.createdAt), desc(savedRuns.id))
     .limit(limit);
-  return rows.map(({ whole, trips, createdAt, ...r }) => ({ ...r, createdAt: createdAt.toISOString(), keyResults: keyResultsOf(whole, trips) }));
+  return rows.map(({ whole, windows, trips, createdAt, ...r }) => ({ ...r, createdAt: createdAt.toISOString(), keyResults: keyResultsOf(windows, whole, trips) }));
 }
 
 export interface SavedRunDetail {

@@ -214,14 +214,14 @@ describe("TuningSets", () => {
     const onLoad = vi.fn();
     render(<TuningSets plantRef={ref} current={current} onLoad={onLoad} />, { wrapper: freshSwr });
     const row = await screen.findByTestId("tuning-set");
-    expect(row.textContent).toContain("Kc 5.00\u00a0%/°C");
-    expect(row.textContent).toContain("Td 20.0\u00a0s");
+    expect(row.textContent).toContain("Kc 5\u00a0%/°C");
+    expect(row.textContent).toContain("Td 20\u00a0s");
     fireEvent.click(within(row).getByRole("button", { name: "Load" }));
     expect(onLoad).toHaveBeenCalledWith(expect.objectContaining({ kc: 5, ti: 300, td: 20, form: "standard" }));
 
     const save = screen.getByRole("button", { name: "Save current tuning" }) as HTMLButtonElement;
     expect(save.disabled).toBe(true); // no name yet
-    fireEvent.change(screen.getByLabelText("Name"), { target: { value: "Filter 4 s" } });
+    fireEvent.change(screen.getByLabelText("Tuning set name"), { target: { value: "Filter 4 s" } });
     await act(async () => fireEvent.click(save));
     await waitFor(() => expect(saveTuningSet).toHaveBeenCalledTimes(1));
     expect(JSON.parse(String(saveTuningSet.mock.calls[0][1].get("payload")))).toEqual({ plantRef: ref, name: "Filter 4 s", notes: "", controller: current });
@@ -271,7 +271,7 @@ describe("RunHistory", () => {
     await waitFor(() => expect(onOpen).toHaveBeenCalledWith(expect.objectContaining({ id: ids[0], seed: 7 })));
     expect(fetchMock).toHaveBeenCalledWith(`/api/runs/${ids[0]}`, expect.anything());
 
-    fireEvent.change(screen.getByLabelText("Title"), { target: { value: "Door-open proof" } });
+    fireEvent.change(screen.getByLabelText("Run title"), { target: { value: "Door-open proof" } });
     await act(async () => fireEvent.click(screen.getByRole("button", { name: "Save this run" })));
     await waitFor(() => expect(saveRun).toHaveBeenCalledTimes(1));
     expect(JSON.parse(String(saveRun.mock.calls[0][1].get("payload")))).toMatchObject({ plantRef: ref, title: "Door-open proof", seed: 11, actionLog: currentRun.actionLog, engineVersion: ENGINE_VERSION });

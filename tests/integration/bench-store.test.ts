@@ -275,7 +275,12 @@ describe("saved runs", () => {
     expect(ids.indexOf(second.id)).toBeLessThan(ids.indexOf(first.id));
     const summary = list.find((r) => r.id === first.id)!;
     expect(summary).toMatchObject({ title: "Ladder step, reference tuning", seed: 3141, actionCount: 5, durationS: 600 });
+    // key results come from the scoring window (the one step here), on the true temperature
+    const win = (full!.results as { windows: { trueTemperature: { iae: number; overshootPct: number | null; settlingTimeS: number | null } }[] }).windows[0].trueTemperature;
+    expect(summary.keyResults.iae).toBeCloseTo(win.iae, 9);
     expect(summary.keyResults.iae).toBeGreaterThan(0);
+    expect(summary.keyResults.overshootPct).toBe(win.overshootPct);
+    expect(summary.keyResults.settlingTimeS).toBe(win.settlingTimeS);
     expect(summary).not.toHaveProperty("drill");
     expect(summary).not.toHaveProperty("actionLog");
   });

@@ -1,12 +1,12 @@
 // Small shared pieces of the Bench's plant and saved-work panels: number formatting (every number
 // with its unit, in the monospaced `.num` face), and the JSON fetcher SWR uses.
 
-/** Decimals by magnitude, so readouts keep three or four significant figures. */
+/** Decimals by magnitude, so figures keep three or four significant digits; `digits` fixes them. */
 export function formatNumber(value: number, digits?: number): string {
   if (!Number.isFinite(value)) return "—";
   const a = Math.abs(value);
   const d = digits ?? (a >= 100 ? 0 : a >= 10 ? 1 : a >= 1 ? 2 : a >= 0.01 ? 3 : a === 0 ? 0 : 4);
-  return new Intl.NumberFormat("en-GB", { maximumFractionDigits: d, minimumFractionDigits: d }).format(value);
+  return new Intl.NumberFormat("en-GB", { maximumFractionDigits: d, minimumFractionDigits: digits ?? 0 }).format(value);
 }
 
 /** A number and its unit, never split across lines. A missing value shows as a dash with the unit. */

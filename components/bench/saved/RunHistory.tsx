@@ -108,7 +108,7 @@ export function RunHistory({ plantRef, currentRun, onOpen, onCompare }: RunHisto
       <h3 className="text-xs uppercase tracking-wide text-ink-faint">Saved runs</h3>
       <form action={save} className="flex flex-wrap items-end gap-2">
         <label className="block min-w-56 flex-1">
-          <span className="mb-0.5 block text-ink-soft">Title</span>
+          <span className="mb-0.5 block text-ink-soft">Run title</span>
           <input
             value={title}
             onChange={(e) => setTitle(e.target.value)}
@@ -199,7 +199,7 @@ export function RunHistory({ plantRef, currentRun, onOpen, onCompare }: RunHisto
           </tbody>
         </table>
       ) : null}
-      {runs.length ? <p className="text-xs text-ink-faint">IAE, overshoot and settling over the whole run, on the true temperature.</p> : null}
+      {runs.length ? <p className="text-xs text-ink-faint">On the true temperature: IAE summed over the drill’s scored windows; overshoot and settling the largest of its setpoint steps (a dash: not scored, or not settled).</p> : null}
     </section>
   );
 }

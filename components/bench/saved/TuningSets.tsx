@@ -71,7 +71,7 @@ export function TuningSets({ plantRef, current, onLoad }: TuningSetsProps) {
       <h3 className="text-xs uppercase tracking-wide text-ink-faint">Tuning sets</h3>
       <form action={save} className="flex flex-wrap items-end gap-2">
         <label className="block min-w-40 flex-1">
-          <span className="mb-0.5 block text-ink-soft">Name</span>
+          <span className="mb-0.5 block text-ink-soft">Tuning set name</span>
           <input value={name} onChange={(e) => setName(e.target.value)} required maxLength={120} placeholder="e.g. relay test, PI, filter 4 s" className="w-full rounded-sm border border-rule-strong bg-paper-raised px-2 py-1" />
         </label>
         <label className="block min-w-40 flex-1">
