@@ -15,14 +15,14 @@ import { derivedFigures } from "@/sim/plant/derived-figures";
 import { PLANT_PRESETS } from "@/sim/plant/presets";
 
 const savePlant = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Plant saved.", id: "0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11", ref: "plant:0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11" }) as ActionResult);
-const updatePlant = vi.fn(async (): Promise<ActionResult> => ({ ok: true }));
+const updatePlant = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Plant updated." }));
 const saveTuningSet = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Tuning set saved." }));
 const saveRun = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Run saved." }));
 const setPlantShared = vi.fn(async (_prev: ActionResult, _form: FormData): Promise<ActionResult> => ({ ok: true, message: "Plant shared within your organisation." }));
 const refused = async (): Promise<ActionResult> => ({ ok: false, error: "You are not allowed to do that." });
 vi.mock("@/app/(app)/bench/actions", () => ({
   savePlant: (p: ActionResult, f: FormData) => savePlant(p, f),
-  updatePlant: () => updatePlant(),
+  updatePlant: (p: ActionResult, f: FormData) => updatePlant(p, f),
   saveTuningSet: (p: ActionResult, f: FormData) => saveTuningSet(p, f),
   deleteTuningSet: refused,
   saveRun: (p: ActionResult, f: FormData) => saveRun(p, f),
@@ -126,6 +126,15 @@ describe("PlantEditor", () => {
     expect(payload).toMatchObject({ name: "Cabinet K-7", origin: "physical", definition: { kind: "enclosure", inletAirflowM3PerH: 30, heaterRatingW: 800 } });
     await waitFor(() => expect(onSaved).toHaveBeenCalledWith("plant:0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11", expect.objectContaining({ inletAirflowM3PerH: 30 }), "Cabinet K-7"));
     expect((await screen.findByTestId("form-status")).textContent).toBe("Plant saved.");
+
+    // a second save changes the plant just created instead of making a copy
+    type("Inlet airflow", "35");
+    await act(async () => {
+      fireEvent.click(screen.getByRole("button", { name: "Save changes" }));
+    });
+    await waitFor(() => expect(updatePlant).toHaveBeenCalledTimes(1));
+    expect(savePlant).toHaveBeenCalledTimes(1);
+    expect(JSON.parse(String(updatePlant.mock.calls[0][1].get("payload")))).toMatchObject({ plantId: "0b6b0f0e-7d52-4c8e-9a51-4f3f1c2a9e11", definition: { inletAirflowM3PerH: 35 } });
   });
 });
 

@@ -262,10 +262,17 @@ export function PlantEditor({ plant, startFrom, onSaved }: PlantEditorProps) {
   const deferredDefinition = useDeferredValue(validation.definition);
   const figures = useMemo(() => figuresOf(deferredDefinition, outPercent), [deferredDefinition, outPercent]);
 
-  const [state, formAction, pending] = useActionState<ActionResult, FormData>((plant ? updatePlant : savePlant) as Action, { ok: true });
+  // After the first save the editor goes on editing that plant (a second click updates it, it does not copy it).
+  const [savedId, setSavedId] = useState<string | null>(null);
+  const targetId = plant?.id ?? savedId;
+  const [state, formAction, pending] = useActionState<ActionResult, FormData>(
+    (previous, form) => ((form.has("update") ? updatePlant : savePlant) as Action)(previous, form),
+    { ok: true },
+  );
   useEffect(() => {
     const saved = state as SavedResult;
-    if (saved.ok && saved.ref && validation.definition) {
+    if (saved.ok && saved.ref && saved.id && validation.definition) {
+      setSavedId(saved.id);
       void mutate("/api/plants");
       onSaved?.(saved.ref, validation.definition, name.trim());
     }
@@ -279,9 +286,10 @@ export function PlantEditor({ plant, startFrom, onSaved }: PlantEditorProps) {
   const submit = (form: FormData) => {
     if (!validation.definition) return;
     const origin = kind === "transfer-function" && twin ? "twin" : "physical";
+    if (targetId) form.set("update", "1");
     form.set(
       "payload",
-      JSON.stringify({ ...(plant ? { plantId: plant.id } : {}), name: name.trim(), description: description.trim(), definition: validation.definition, origin }),
+      JSON.stringify({ ...(targetId ? { plantId: targetId } : {}), name: name.trim(), description: description.trim(), definition: validation.definition, origin }),
     );
     return formAction(form);
   };
@@ -289,7 +297,7 @@ export function PlantEditor({ plant, startFrom, onSaved }: PlantEditorProps) {
   const groups = kind === "enclosure" ? ENCLOSURE_GROUPS : TRANSFER_FUNCTION_GROUPS;
 
   return (
-    <form action={submit} aria-label={plant ? `Edit plant ${plant.name}` : "New plant"} className="grid gap-6 text-sm lg:grid-cols-[minmax(0,1fr)_18rem]">
+    <form action={submit} aria-label={targetId ? `Edit plant ${name}` : "New plant"} className="grid gap-6 text-sm lg:grid-cols-[minmax(0,1fr)_18rem]">
       <div className="space-y-5">
         <div className="flex flex-wrap items-end gap-4">
           <label className="block min-w-56 flex-1">
@@ -424,7 +432,7 @@ export function PlantEditor({ plant, startFrom, onSaved }: PlantEditorProps) {
         <FormOutcome state={state} />
         <div className="flex items-center gap-3">
           <button type="submit" disabled={!canSave} className="rounded-sm bg-ink px-4 py-2 font-medium text-paper hover:bg-ink-soft disabled:opacity-50">
-            {pending ? "Saving…" : plant ? "Save changes" : "Save plant"}
+            {pending ? "Saving…" : targetId ? "Save changes" : "Save plant"}
           </button>
           {!validation.definition ? (
             <span className="text-xs text-ink-faint">Correct the marked fields to save.</span>

@@ -58,7 +58,8 @@ export function RunHistory({ plantRef, currentRun, onOpen, onCompare }: RunHisto
   useEffect(() => {
     void mutate();
   }, [saveState, deleteState, mutate]);
-  useEffect(() => setTitle(currentRun?.title ?? ""), [currentRun]);
+  // a new run (not merely a new object around the same one) brings its own title
+  useEffect(() => setTitle(currentRun?.title ?? ""), [currentRun?.title, currentRun?.drill, currentRun?.seed, currentRun?.actionLog, currentRun?.results]);
   useEffect(() => setTicked([]), [plantRef]);
 
   const runs = data?.runs ?? [];
