@@ -228,7 +228,7 @@ function figuresOf(def: PlantDefinition | null, outPercent: number): Figures | n
 
 export interface PlantEditorProps {
   /** an existing plant of the user's: saving updates it */
-  plant?: { id: string; name: string; description: string; definition: PlantDefinition };
+  plant?: { id: string; name: string; description: string; definition: PlantDefinition; origin?: "physical" | "twin" | "preset" };
   /** where a new plant starts (for example a preset's definition); default: the first preset */
   startFrom?: PlantDefinition;
   /** called after a successful save with the plant's reference, its definition and name */
@@ -250,7 +250,7 @@ export function PlantEditor({ plant, startFrom, onSaved }: PlantEditorProps) {
   );
   const [name, setName] = useState(plant?.name ?? "");
   const [description, setDescription] = useState(plant?.description ?? "");
-  const [twin, setTwin] = useState(false);
+  const [twin, setTwin] = useState(plant?.origin === "twin");
   const [outText, setOutText] = useState("50");
 
   const values = kind === "enclosure" ? enclosureValues : tfValues;

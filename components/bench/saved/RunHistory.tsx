@@ -151,7 +151,7 @@ export function RunHistory({ plantRef, currentRun, onOpen, onCompare }: RunHisto
       {data && runs.length === 0 ? <p className="text-ink-faint">No saved runs for this plant yet.</p> : null}
       {runs.length ? (
         <table className="w-full border-collapse">
-          <TableHead columns={["", "Title", "Saved", "Engine", "Duration", "IAE", "Overshoot", "Settling", ""]} />
+          <TableHead columns={["Compare", "Title", "Saved", "Engine", "Duration", "IAE", "Overshoot", "Settling", ""]} />
           <tbody>
             {runs.map((r) => {
               const k = r.keyResults;
