@@ -43,17 +43,28 @@ export interface Proposal {
   recommended: Recommendation | { refused: true; reason: string };
 }
 
-export function defaultRule(req: Pick<ProposalRequest, "ultimate" | "controller">): string {
-  if (req.ultimate) return "tyreus-luyben";
-  return (req.controller ?? "PID") === "PI" ? "simc" : "amigo";
+/**
+ * Rules tried in order when none is named: Tyreus–Luyben for an ultimate point (conservative);
+ * from a model SIMC (PI, or PID on an SOPDT), then AMIGO, then IMC, which also copes with a
+ * model without dead time (the first two divide by θ).
+ */
+export function defaultRules(req: Pick<ProposalRequest, "ultimate" | "model" | "controller">): string[] {
+  const c = req.controller ?? "PID";
+  const fromModel = c === "PID" && req.model?.kind !== "sopdt" ? ["amigo", "imc-lambda"] : ["simc", "amigo", "imc-lambda"];
+  return [...(req.ultimate ? ["tyreus-luyben"] : []), ...(req.model ? fromModel : [])];
 }
 
 export function propose(req: ProposalRequest): Proposal {
   const inputs = { ultimate: req.ultimate, model: req.model };
   const tunings = allTunings(inputs);
   const controller = req.controller ?? "PID";
-  const rule = req.rule ?? defaultRule(req);
-  const r = tuneByName(rule, controller, inputs);
+  const candidates = req.rule ? [req.rule] : defaultRules(req);
+  if (!candidates.length) return { tunings, recommended: { refused: true, reason: "nothing to tune from: neither an ultimate point nor a model" } };
+  let r: RuleResult = tuneByName(candidates[0], controller, inputs);
+  for (const name of candidates.slice(1)) {
+    if (!isRefusal(r)) break;
+    r = tuneByName(name, controller, inputs);
+  }
   if (isRefusal(r)) return { tunings, recommended: { refused: true, reason: `${r.rule}: ${r.reason}` } };
   const form = req.form ?? req.base.form;
   const conversion = toBlockForm(r, form);

@@ -53,28 +53,28 @@ export function fitFopdt(r: StepRecord, range: SearchRange): FittedModel<FopdtMo
 
 export function fitSopdt(r: StepRecord, range: SearchRange, start: FopdtModel): FittedModel<SopdtModel> {
   const buf = new Float64Array(r.t.length);
-  let warm = [Math.log(0.7 * start.timeConstantS), Math.log(0.25 * start.timeConstantS)];
-  const lo = Math.log(range.tauMinS);
+  // the second lag may be far shorter than the FOPDT's time constant: a wider lower bound
+  const lo = Math.log(Math.max(1e-6, Math.min(range.tauMinS, start.timeConstantS / 1000)));
   const hi = Math.log(range.tauMaxS);
   const clampLog = (v: number) => Math.min(hi, Math.max(lo, v));
+  const taus = (p: number[]) => [Math.exp(clampLog(p[0])), Math.exp(clampLog(p[1]))];
+  // two starts: nearly the FOPDT (a tiny second lag, so the fit can only improve on it) and a
+  // genuine two-lag split of the FOPDT time constant
+  const starts = [
+    [Math.log(start.timeConstantS), Math.log(start.timeConstantS / 300)],
+    [Math.log(0.7 * start.timeConstantS), Math.log(0.25 * start.timeConstantS)],
+  ];
   const inner = (theta: number) => {
-    const res = nelderMead((p) => evaluate(r, [Math.exp(clampLog(p[0])), Math.exp(clampLog(p[1]))], theta, buf).sse, warm, { step: 0.4, maxEvaluations: 160 });
-    return res;
+    let best = { x: starts[0], f: Infinity };
+    for (const s0 of starts) {
+      const res = nelderMead((p) => evaluate(r, taus(p), theta, buf).sse, s0, { step: 0.4, maxEvaluations: 120 });
+      if (res.f < best.f) best = res;
+    }
+    return best;
   };
-  const outer = gridThenGoldenMin(
-    (theta) => {
-      const res = inner(theta);
-      return res.f;
-    },
-    0,
-    Math.max(start.deadTimeS * 1.2, range.deadTimeMaxS / 4),
-    21,
-  );
+  const outer = gridThenGoldenMin((theta) => inner(theta).f, 0, Math.max(start.deadTimeS * 1.2, range.deadTimeMaxS / 4), 17);
   const theta = outer.x;
-  warm = [Math.log(0.7 * start.timeConstantS), Math.log(0.25 * start.timeConstantS)];
-  const best = inner(theta);
-  const ta = Math.exp(clampLog(best.x[0]));
-  const tb = Math.exp(clampLog(best.x[1]));
+  const [ta, tb] = taus(inner(theta).x);
   const g = evaluate(r, [ta, tb], theta, buf);
   const model: SopdtModel = { kind: "sopdt", gainCPerPercent: g.gain, timeConstant1S: Math.max(ta, tb), timeConstant2S: Math.min(ta, tb), deadTimeS: theta };
   return finish(r, model, [ta, tb], theta);

@@ -106,11 +106,17 @@ function identifyChecked(record: StepRecord, opts: IdentifyOptions): Identificat
       code: "record-too-short",
       message: `the record ends ${r3(after)} s after the step, before the process settles (θ + 4τ ≈ ${r3(needed)} s): the gain and time constant are extrapolated; record longer`,
     });
-  const thetaSamples = fo.model.deadTimeS / dtMed;
+  // samples inside the dead time, counted where they are (the spacing may vary along the record)
+  const tDead = step.timeS + fo.model.deadTimeS;
+  let thetaSamples = 0;
+  for (let i = step.index; i < n && record.t[i] <= tDead; i++) thetaSamples++;
   if (thetaSamples < 10)
     warnings.push({
       code: "dead-time-few-samples",
-      message: `the dead time (${r3(fo.model.deadTimeS)} s) spans only ${r3(thetaSamples)} sampling intervals (median ${r3(dtMed)} s): it is coarsely resolved; log faster (at least ten samples within the dead time)`,
+      message:
+        fo.model.deadTimeS > 0
+          ? `the dead time (${r3(fo.model.deadTimeS)} s) spans only ${thetaSamples} sample(s): it is coarsely resolved; log faster (at least ten samples within the dead time)`
+          : "no dead time was found: either the process responds at once or the logging is too slow to see it (log faster around the step)",
     });
   const pre = step.index;
   if (pre < 5) {
@@ -118,7 +124,8 @@ function identifyChecked(record: StepRecord, opts: IdentifyOptions): Identificat
   } else {
     const d = detrendedSigma(record.t.slice(0, pre), record.pv.slice(0, pre));
     const drift = Math.abs(d.slope) * after;
-    if (drift > 0.05 * Math.abs(change) && drift > 3 * Math.max(noise, d.sigma / Math.sqrt(pre)))
+    // a trend that is real (slope beyond 3 standard errors) and matters (over 5 % of the change)
+    if (drift > 0.05 * Math.abs(change) && Math.abs(d.slope) > 3 * d.slopeStdError)
       warnings.push({
         code: "not-steady-before-step",
         message: `PV was drifting before the step (${r3(d.slope * 60)} °C/min, ≈ ${r3(drift)} °C over the response): the fit mixes that drift into the model; wait for steady state before stepping`,

@@ -21,9 +21,9 @@ export function noiseSigmaFromSecondDifferences(y: readonly number[]): number {
 }
 
 /** Residual standard deviation about a straight-line fit (for a quiet window or a pre-step baseline). */
-export function detrendedSigma(t: readonly number[], y: readonly number[]): { sigma: number; slope: number; mean: number } {
+export function detrendedSigma(t: readonly number[], y: readonly number[]): { sigma: number; slope: number; slopeStdError: number; mean: number } {
   const n = y.length;
-  if (n < 2) return { sigma: 0, slope: 0, mean: n ? y[0] : 0 };
+  if (n < 2) return { sigma: 0, slope: 0, slopeStdError: Infinity, mean: n ? y[0] : 0 };
   let st = 0;
   let sy = 0;
   for (let i = 0; i < n; i++) {
@@ -41,5 +41,7 @@ export function detrendedSigma(t: readonly number[], y: readonly number[]): { si
   const slope = stt > 0 ? sty / stt : 0;
   let ss = 0;
   for (let i = 0; i < n; i++) ss += (y[i] - ym - slope * (t[i] - tm)) ** 2;
-  return { sigma: Math.sqrt(ss / Math.max(1, n - 2)), slope, mean: ym };
+  const sigma = Math.sqrt(ss / Math.max(1, n - 2));
+  // standard error of a least-squares slope: σ/√Σ(t − t̄)²
+  return { sigma, slope, slopeStdError: stt > 0 && n > 2 ? sigma / Math.sqrt(stt) : Infinity, mean: ym };
 }
