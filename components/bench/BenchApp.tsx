@@ -12,12 +12,13 @@ import { PLANT_PRESETS } from "@/sim/plant/presets";
 import { derivedFigures } from "@/sim/plant/derived-figures";
 import { temperatureToDisplay } from "@/sim/units";
 import { Trend } from "@/components/trend/Trend";
-import { BENCH_START_TUNING, benchDrill, plantDefinitionOf, type BenchPlant } from "./bench-drill";
+import { BENCH_DURATION_S, BENCH_START_TUNING, benchDrill, plantDefinitionOf, type BenchPlant } from "./bench-drill";
 import { benchWindows } from "./bench-results";
 import { ControllerForm } from "./ControllerForm";
 import { DisturbancePanel } from "./DisturbancePanel";
 import { BenchEngine } from "./engine-client";
-import { Faceplate } from "./Faceplate";
+import { Faceplate, type FaceplateProps } from "./Faceplate";
+import { useShallow } from "zustand/react/shallow";
 import { HelpOverlay } from "./HelpOverlay";
 import { ResultsTable } from "./ResultsTable";
 import { BENCH_SPEEDS, RunControls } from "./RunControls";
@@ -45,7 +46,10 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   const [controller, setController] = useState<ControllerConfig>(() => controllerConfigSchema.parse(BENCH_START_TUNING));
   const [seed] = useState(DEFAULT_SEED);
   const [setpointC] = useState(60);
-  const { status, speed, snapshot, events, units, showTruth, showRaw, helpOpen, engineVersion, error, set } = useBench();
+  // the snapshot changes at chunk rate: only the small live components below subscribe to it
+  const { status, speed, events, units, showTruth, showRaw, helpOpen, engineVersion, error, set } = useBench(
+    useShallow((s) => ({ status: s.status, speed: s.speed, events: s.events, units: s.units, showTruth: s.showTruth, showRaw: s.showRaw, helpOpen: s.helpOpen, engineVersion: s.engineVersion, error: s.error, set: s.set })),
+  );
 
   const drill = useMemo(() => benchDrill({ plant, title: plantTitle, setpointC, reference: controller, seed }), [plant, plantTitle, setpointC, seed, controller]);
   const parsedDrill = useMemo(() => drillSchema.parse(drill), [drill]);
@@ -53,7 +57,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   const cutout = useMemo(() => resolveCutout(parsedDrill), [parsedDrill]);
   const spanC = sensor.transmitter.rangeHighC - sensor.transmitter.rangeLowC;
   const definition = useMemo(() => plantDefinitionOf(plant), [plant]);
-  const figures = useMemo(() => derivedFigures(definition, snapshot?.outPercent ?? 30), [definition, snapshot?.outPercent === undefined]);
+  const figures = useMemo(() => derivedFigures(definition, Number(drill.initialState.outPercent ?? 30)), [definition, drill]);
 
   // one worker per Bench
   useEffect(() => {
@@ -230,10 +234,9 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           </div>
           {engine ? <Trend buffer={engine.buffer} events={events} unit={units.temperature} showTruth={showTruth} showRaw={showRaw} /> : null}
         </section>
-        <RunControls
+        <LiveRunControls
           status={status}
           speed={speed}
-          timeS={snapshot?.timeS ?? 0}
           seed={seed}
           engineVersion={engineVersion}
           onRun={(s) => act?.run(s)}
@@ -241,6 +244,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           onStep={() => act?.step(1)}
           onReset={() => act?.reset()}
         />
+        <EndOfRunNote />
         <p className="-mt-2 text-right text-xs text-ink-faint">
           {fingerprint ? <span className="num mr-3" data-testid="trace-fingerprint">trace {fingerprint.value} · {fingerprint.rows} samples</span> : null}
           <button type="button" onClick={exportReplay} className="underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
@@ -279,8 +283,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
       </div>
 
       <aside className="space-y-4">
-        <Faceplate
-          snapshot={snapshot}
+        <LiveFaceplate
           unit={units.temperature}
           highAlarmC={cutout.tripPointC - 10}
           onSetpoint={onSetpoint}
@@ -315,6 +318,26 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
       </aside>
       {helpOpen ? <HelpOverlay onClose={() => set({ helpOpen: false })} /> : null}
     </div>
+  );
+}
+
+function LiveFaceplate(props: Omit<FaceplateProps, "snapshot">) {
+  const snapshot = useBench((s) => s.snapshot);
+  return <Faceplate snapshot={snapshot} {...props} />;
+}
+
+function LiveRunControls(props: Omit<Parameters<typeof RunControls>[0], "timeS">) {
+  const timeS = useBench((s) => s.snapshot?.timeS ?? 0);
+  return <RunControls timeS={timeS} {...props} />;
+}
+
+function EndOfRunNote() {
+  const ended = useBench((s) => (s.snapshot?.timeS ?? 0) >= BENCH_DURATION_S);
+  if (!ended) return null;
+  return (
+    <p role="status" className="text-sm text-ink-soft">
+      This run has reached the Bench&apos;s {BENCH_DURATION_S / 3600} h length. Reset to start again, or export it first.
+    </p>
   );
 }
 

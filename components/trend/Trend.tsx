@@ -120,6 +120,9 @@ export function Trend({ buffer, events, unit, showTruth, showRaw, overlay }: Tre
     });
     p.out.setData([d.x, d.series[4], d.series[5]] as uPlot.AlignedData, true);
     live.current.drawnVersion = buffer.version;
+    // redraw counter read by the browser benchmark (tests/perf/bench-browser.ts)
+    const w = window as unknown as { __loopwrightTrendDraws?: number };
+    w.__loopwrightTrendDraws = (w.__loopwrightTrendDraws ?? 0) + 1;
   }, [buffer, currentRange]);
 
   // create the charts once

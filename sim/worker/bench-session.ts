@@ -25,16 +25,22 @@ export class BenchSession {
     return this.simulation.sampleTimeS;
   }
 
-  /** Simulate `samples` whole samples (the Bench runs past the drill's duration if asked). */
+  /** The run has reached the end of its drill (the Bench's run length); it stops there. */
+  get finished(): boolean {
+    return this.simulation.finished;
+  }
+
+  /** Simulate up to `samples` whole samples, never past the end of the drill. */
   stepSamples(samples: number): void {
-    for (let i = 0; i < samples; i++) this.simulation.step();
+    const sim = this.simulation;
+    for (let i = 0; i < samples && !sim.finished; i++) sim.step();
   }
 
   /** Simulate for up to `budgetMs` of wall time, in batches; returns the samples done. */
   runFor(budgetMs: number, now: () => number, batch = 200): number {
     const start = now();
     let done = 0;
-    while (now() - start < budgetMs) {
+    while (now() - start < budgetMs && !this.finished) {
       this.stepSamples(batch);
       done += batch;
     }

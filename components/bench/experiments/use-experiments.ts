@@ -1,5 +1,9 @@
 "use client";
-/** A handle on the experiments worker: start a set of variants, follow progress, cancel. */
+/**
+ * A handle on the experiments workers: start a set of variants, follow progress, cancel. The
+ * variants are dealt round-robin to a small pool (one worker per core, at most four), and the
+ * rows are merged back in variant order.
+ */
 import { useCallback, useEffect, useRef, useState } from "react";
 import type { DrillInput } from "@/sim/drill/schema";
 import type { Variant, VariantRun } from "@/sim/experiments/variants";
@@ -18,48 +22,68 @@ export interface ExperimentState {
 
 const idle: ExperimentState = { kind: null, status: "idle", done: 0, total: 0, rows: [], elapsedMs: null, error: null };
 
+const poolSize = () => Math.max(1, Math.min(4, typeof navigator !== "undefined" ? navigator.hardwareConcurrency || 2 : 2));
+
 export function useExperiments() {
-  const worker = useRef<Worker | null>(null);
+  const workers = useRef<Worker[]>([]);
   const runId = useRef(0);
+  const startedAt = useRef(0);
+  const pending = useRef(0);
   const [state, setState] = useState<ExperimentState>(idle);
 
-  useEffect(() => () => worker.current?.terminate(), []);
+  useEffect(() => () => workers.current.forEach((w) => w.terminate()), []);
 
-  const ensureWorker = () => {
-    if (worker.current) return worker.current;
-    const w = new Worker(new URL("../../../sim/worker/experiments.worker.ts", import.meta.url), { type: "module" });
-    w.onmessage = (e: MessageEvent<FromExperiments>) => {
-      const m = e.data;
-      if (m.id !== runId.current) return;
-      setState((s) => {
-        switch (m.type) {
-          case "row":
-            return { ...s, rows: [...s.rows, m.run] };
-          case "progress":
-            return { ...s, done: m.done, total: m.total };
-          case "done":
-            return { ...s, status: "done", elapsedMs: m.elapsedMs };
-          case "cancelled":
-            return { ...s, status: "cancelled" };
-          case "error":
-            return { ...s, status: "error", error: m.message };
+  const onMessage = useCallback((slot: number, slots: number) => (e: MessageEvent<FromExperiments>) => {
+    const m = e.data;
+    if (m.id !== runId.current) return;
+    setState((s) => {
+      switch (m.type) {
+        case "row": {
+          // worker `slot` ran variants slot, slot + slots, …: restore the global index
+          const run = { ...m.run, index: m.run.index * slots + slot };
+          const rows = [...s.rows, run].sort((a, b) => a.index - b.index);
+          return { ...s, rows, done: rows.length };
         }
-      });
-    };
-    worker.current = w;
-    return w;
+        case "progress":
+          return s;
+        case "done":
+          pending.current -= 1;
+          return pending.current === 0 ? { ...s, status: "done", elapsedMs: performance.now() - startedAt.current } : s;
+        case "cancelled":
+          return { ...s, status: "cancelled" };
+        case "error":
+          return { ...s, status: "error", error: m.message };
+      }
+    });
+  }, []);
+
+  const ensureWorkers = (n: number) => {
+    while (workers.current.length < n) {
+      workers.current.push(new Worker(new URL("../../../sim/worker/experiments.worker.ts", import.meta.url), { type: "module" }));
+    }
+    return workers.current.slice(0, n);
   };
 
-  const start = useCallback((kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], seed: number, meta?: ExperimentState["meta"]) => {
-    const id = ++runId.current;
-    setState({ ...idle, kind, status: "running", total: variants.length, meta });
-    const msg: ToExperiments = { type: "start", id, drill, variants, seed, keepTraces: kind !== "map" };
-    ensureWorker().postMessage(msg);
-  }, []);
+  const start = useCallback(
+    (kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], seed: number, meta?: ExperimentState["meta"]) => {
+      const id = ++runId.current;
+      const slots = Math.min(poolSize(), variants.length);
+      setState({ ...idle, kind, status: "running", total: variants.length, meta });
+      startedAt.current = performance.now();
+      pending.current = slots;
+      ensureWorkers(slots).forEach((w, slot) => {
+        w.onmessage = onMessage(slot, slots);
+        const mine = variants.filter((_, i) => i % slots === slot);
+        const msg: ToExperiments = { type: "start", id, drill, variants: mine, seed, keepTraces: kind !== "map" };
+        w.postMessage(msg);
+      });
+    },
+    [onMessage],
+  );
 
   const cancel = useCallback(() => {
     const msg: ToExperiments = { type: "cancel", id: runId.current };
-    worker.current?.postMessage(msg);
+    workers.current.forEach((w) => w.postMessage(msg));
   }, []);
 
   return { state, start, cancel };
