@@ -8,3 +8,4 @@ export * from "./gain-and-baseline";
 export * from "./fit-quality";
 export * from "./fit-models";
 export * from "./identify-step";
+export * from "./csv-record";

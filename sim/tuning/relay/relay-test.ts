@@ -68,7 +68,7 @@ export interface RelayTestOptions {
 }
 
 export type RelayPhase = "quiet" | "kick" | "relay" | "returning" | "done" | "aborted";
-export type RelayAbortCode = "noise" | "noise-warning" | "time-limit" | "bad-pv" | "cutout" | "no-room" | "cancelled";
+export type RelayAbortCode = "noise" | "noise-warning" | "time-limit" | "bad-pv" | "cutout" | "no-room" | "setpoint-changed" | "cancelled";
 
 export interface RelayProgress {
   phase: RelayPhase;
@@ -144,6 +144,13 @@ function r3(x: number): string {
   return String(+x.toPrecision(3));
 }
 
+/** Round up to two significant digits (a default hysteresis must not fall below 3σ by rounding). */
+function roundUp2(x: number): number {
+  if (!(x > 0)) return 0;
+  const e = 10 ** (Math.floor(Math.log10(x)) - 1);
+  return Math.ceil(x / e - 1e-9) * e;
+}
+
 export class RelayTest {
   private phaseValue: RelayPhase = "quiet";
   private readonly o: Required<Pick<RelayTestOptions, "amplitudePercent" | "settlingCycles" | "cycles" | "timeLimitS" | "minHalfPeriodSamples">> & RelayTestOptions;
@@ -176,7 +183,8 @@ export class RelayTest {
   private pendingAbort: Omit<RelayAbort, "progress"> | null = null;
 
   constructor(readonly sim: Simulation, options: RelayTestOptions = {}) {
-    this.o = { amplitudePercent: 10, settlingCycles: 1, cycles: 3, timeLimitS: 14400, minHalfPeriodSamples: 4, ...options };
+    const defined = Object.fromEntries(Object.entries(options).filter(([, v]) => v !== undefined)) as RelayTestOptions;
+    this.o = { amplitudePercent: 10, settlingCycles: 1, cycles: 3, timeLimitS: 14400, minHalfPeriodSamples: 4, ...defined };
     this.ts = sim.sampleTimeS;
     this.originalConfig = sim.controllerConfig;
     const st = sim.controllerState;
@@ -294,7 +302,7 @@ export class RelayTest {
     const noise = detrendedSigma(this.quietT, this.quietPv);
     const tracks = this.originalConfig.spTrackInManual;
     const centre = st.sp;
-    this.eps = this.o.hysteresisC ?? Math.max(0.05, +(3 * noise.sigma).toPrecision(2));
+    this.eps = this.o.hysteresisC ?? Math.max(0.05, roundUp2(3 * noise.sigma));
     if (this.o.hysteresisC === undefined) this.warnings.push(`hysteresis ε set to ${r3(this.eps)} °C (3σ of the PV noise, at least 0.05 °C)`);
     const pvNow = s.pvFilteredC;
     this.start = {
@@ -315,8 +323,9 @@ export class RelayTest {
       this.warnings.push(
         `PV (${r3(pvNow)} °C) is ${r3(Math.abs(pvNow - centre))} °C from SP (${r3(centre)} °C): bring the loop near its operating point in manual first (the power curve gives the OUT that holds SP); the relay result belongs to the point where it oscillates`,
       );
+    // a real trend (beyond 3 standard errors of the slope) that would move PV past the band in 10 min
     const driftOverWindow = Math.abs(noise.slope) * 600;
-    if (driftOverWindow > Math.max(near, 3 * noise.sigma)) this.warnings.push(`PV is drifting (${r3(noise.slope * 60)} °C/min): the process is not steady at the start`);
+    if (Math.abs(noise.slope) > 3 * noise.slopeStdError && driftOverWindow > Math.max(near, 3 * noise.sigma)) this.warnings.push(`PV is drifting (${r3(noise.slope * 60)} °C/min): the process is not steady at the start`);
     if (this.eps < 3 * noise.sigma) {
       const msg = `hysteresis ε = ${r3(this.eps)} °C is less than 3σ of the PV noise (σ = ${r3(noise.sigma)} °C): noise may switch the relay; add a PV filter or widen the hysteresis to at least ${r3(3 * noise.sigma)} °C`;
       this.warnings.push(msg);
@@ -362,6 +371,11 @@ export class RelayTest {
     this.rowOut.push(s.outPercent);
     if (s.pvBad) return this.beginAbort("bad-pv", "the PV went bad during the relay test (sensor failure level): test abandoned");
     if (s.cutoutTripped) return this.beginAbort("cutout", "the excess-temperature cutout tripped during the relay test: lower the relay amplitude");
+    if (s.setpointC !== this.start!.relayCentreC)
+      return this.beginAbort(
+        "setpoint-changed",
+        `the setpoint changed during the relay test (${r3(this.start!.relayCentreC)} → ${r3(s.setpointC)} °C, by an event or an operator): the oscillation no longer belongs to one operating point; test abandoned`,
+      );
     if (s.outPercent !== this.lastOut) {
       this.lastOut = s.outPercent;
       this.switchTimes.push(s.timeS);

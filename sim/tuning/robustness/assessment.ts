@@ -31,9 +31,10 @@ export function assessMargins(m: Margins): RobustnessAssessment {
   if (msAbove2) {
     const gainRoom = Number.isFinite(m.gainMargin) ? `the process gain only has to rise by a factor ${r(m.gainMargin)} ` : "";
     const delayRoom = Number.isFinite(m.delayMarginS) ? `${gainRoom ? "or " : ""}the dead time grow by ${r(m.delayMarginS)} s ` : "";
+    const room = `${gainRoom}${delayRoom}`;
     messages.push(
       `Ms = ${r(m.maxSensitivity)} is above 2: the loop runs close to its stability limit. ` +
-        (gainRoom || delayRoom ? `${gainRoom}${delayRoom}for it to oscillate without dying out. ` : "") +
+        (room ? `${room.charAt(0).toUpperCase()}${room.slice(1)}for it to oscillate without dying out. ` : "") +
         "Expect overshoot and ringing after every setpoint change or disturbance, and noise on OUT. " +
         "Lower Kc or lengthen Ti (or shorten Td) to bring Ms below 2; 1.4–1.6 is a comfortable target.",
     );
