@@ -102,6 +102,7 @@ export async function runAutotuneCommand(argv: string[]): Promise<number> {
         ...head,
         ok: true,
         bump: { stepPercent: out.stepPercent, rows: out.record.t.length, step: id.step, twoPoint: id.twoPoint, fopdt: fit(id.fopdt), sopdt: id.sopdt ? fit(id.sopdt) : null, preferred: id.preferred, noiseSigmaC: id.noiseSigmaC, warnings: id.warnings, returned: out.returned },
+        sampleTimeAndFilter: out.sampleTimeAndFilter,
         recommended: rec,
         tunings: out.proposal.tunings,
       },

@@ -18,6 +18,7 @@ import type { IdentifyRefusal } from "../identify/step-record";
 import { propose, type Proposal } from "../proposal";
 import type { BlockForm } from "../rules/form-conversion";
 import type { ControllerType } from "../rules/tuning";
+import { recommendSampleTimeAndFilter, type SampleTimeAndFilter } from "../rules/sample-time-and-filter";
 
 export interface BumpTestOptions {
   /** OUT step, % (negative steps down); default +10, reversed if it would pass 100 % */
@@ -49,7 +50,16 @@ export interface BumpProgress {
 }
 
 export type BumpOutcome =
-  | { ok: true; record: BumpRecord; stepPercent: number; identification: Identification; proposal: Proposal; returned: { outPercent: number; mode: "auto" | "manual" } }
+  | {
+      ok: true;
+      record: BumpRecord;
+      stepPercent: number;
+      identification: Identification;
+      proposal: Proposal;
+      /** for the identified model and the record's noise (filtered PV: the noise left after the present filter) */
+      sampleTimeAndFilter: SampleTimeAndFilter;
+      returned: { outPercent: number; mode: "auto" | "manual" };
+    }
   | { ok: false; record: BumpRecord; refusal: IdentifyRefusal };
 
 export class BumpTest {
@@ -169,7 +179,9 @@ export class BumpTest {
         // a record of the filtered PV already contains the filter, the sensor, sampling and the heater's cycle; a raw-PV record misses the filter
         extraLags: this.o.pvSignal === "raw" ? { pvFilterTauS: cfg.pvFilterTauS } : {},
       });
-      this.outcomeValue = { ok: true, record: this.rec, stepPercent: this.step0, identification: id, proposal, returned: { outPercent: this.out0, mode: this.mode0 } };
+      const sensorLag = this.sim.plantDefinition.sensorTimeConstantS;
+      const sampleTimeAndFilter = recommendSampleTimeAndFilter({ model, noiseSigmaC: id.noiseSigmaC, sensorLagS: sensorLag > 0 ? sensorLag : undefined, sampleTimeS: cfg.sampleTimeS });
+      this.outcomeValue = { ok: true, record: this.rec, stepPercent: this.step0, identification: id, proposal, sampleTimeAndFilter, returned: { outPercent: this.out0, mode: this.mode0 } };
     }
     this.phaseValue = "done";
   }

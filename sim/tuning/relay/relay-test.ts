@@ -32,6 +32,7 @@ import { detrendedSigma } from "../identify/noise-estimate";
 import { propose, type Proposal } from "../proposal";
 import type { BlockForm } from "../rules/form-conversion";
 import type { ControllerType } from "../rules/tuning";
+import { filterNoiseFactor, recommendSampleTimeAndFilter, type SampleTimeAndFilter } from "../rules/sample-time-and-filter";
 import { hysteresisRelayUltimateGain, idealRelayUltimateGain } from "./describing-function";
 import { fopdtFromUltimate } from "./fopdt-relations";
 
@@ -124,6 +125,9 @@ export interface RelayResult {
   meanPvC: number;
   fopdt: { model: FopdtModel; gainSource: "power-curve" | "test-means" } | { model: null; reason: string };
   proposal: Proposal;
+  /** sample time and PV filter for the FOPDT estimate and the raw noise (the quiet window's σ
+   *  with the present filter taken out); null without an FOPDT estimate */
+  sampleTimeAndFilter: SampleTimeAndFilter | null;
   returned: { outPercent: number; mode: "auto" | "manual"; setpointC: number };
   warnings: string[];
   durationS: number;
@@ -388,7 +392,7 @@ export class RelayTest {
           const why = h < minH - 1e-9 ? `only ${Math.round(h / this.ts)} sample(s)` : `shorter than the sensor's own lag (${r3(this.sensorLag)} s)`;
           return this.beginAbort(
             "noise",
-            `noise is switching the relay: a half-period lasted ${r3(h)} s, ${why}, far too short for this process. ` +
+            `noise is switching the relay: a half-period lasted ${r3(h)} s, ${why}, far too short for this plant. ` +
               `The PV noise (σ ≈ ${r3(this.start?.noiseSigmaC ?? 0)} °C) crosses the hysteresis band (±${r3(this.eps)} °C), so the crossings are false and the numbers would be nonsense. ` +
               `Add a PV filter (about a quarter of the sensor lag is a good start) or widen the hysteresis beyond 3σ of the noise, then run the test again.`,
           );
@@ -452,6 +456,11 @@ export class RelayTest {
       base: this.originalConfig,
     });
     this.holdOut = mo;
+    const cfg = this.originalConfig;
+    const rawSigma = start.noiseSigmaC / filterNoiseFactor(cfg.pvFilterTauS, this.ts);
+    const sampleTimeAndFilter = fopdt.model
+      ? recommendSampleTimeAndFilter({ model: fopdt.model, noiseSigmaC: rawSigma, sensorLagS: this.sensorLag > 0 ? this.sensorLag : undefined, sampleTimeS: this.ts })
+      : null;
     this.pendingResult = {
       ok: true,
       start,
@@ -472,6 +481,7 @@ export class RelayTest {
       meanPvC: mp,
       fopdt,
       proposal,
+      sampleTimeAndFilter,
       warnings: this.warnings,
     };
     this.beginReturn();
