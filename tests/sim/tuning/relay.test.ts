@@ -137,6 +137,32 @@ describe("relay test on the engine: FOPDT", () => {
     expect(Math.abs(outs[0] - r.meanOutPercent)).toBeLessThan(2); // no jump to a relay level
   });
 
+  it("aborts cleanly: time limit, cancel, a setpoint change during the test; the loop is handed back each time", () => {
+    const slow = new RelayTest(fopdtSim(0.01), { hysteresisC: 0, timeLimitS: 10 }).run();
+    expect(!slow.ok && slow.code).toBe("time-limit");
+    const sim = fopdtSim(0.01);
+    const t = new RelayTest(sim, { hysteresisC: 0 });
+    for (let i = 0; i < 4000; i++) t.step();
+    t.cancel();
+    const c = t.run();
+    expect(!c.ok && c.code).toBe("cancelled");
+    expect(sim.controllerConfig.kind).toBe("pid");
+    expect(sim.controllerState.mode).toBe("manual");
+    const sim2 = fopdtSim(0.01);
+    const t2 = new RelayTest(sim2, { hysteresisC: 0 });
+    for (let i = 0; i < 4000; i++) t2.step();
+    sim2.act({ type: "setpoint", setpointC: 55 });
+    const c2 = t2.run();
+    expect(!c2.ok && c2.code).toBe("setpoint-changed");
+    expect(!c2.ok && c2.message).toMatch(/setpoint changed during the relay test/);
+  });
+
+  it("proposes a sample time and PV filter from the FOPDT estimate (common practice rules)", () => {
+    const r = done(new RelayTest(fopdtSim(0.01), { hysteresisC: 0 }).run());
+    expect(r.sampleTimeAndFilter?.sampleTimeS).toBe(0.01); // the configured one is kept and checked
+    expect(r.sampleTimeAndFilter?.pvFilterTauS).toBe(0); // a quiet sensor needs no filter
+  });
+
   it("warns when the loop is not near SP at the start (common practice: bring it there in manual first)", () => {
     const sim = fopdtSim(0.01, 50);
     const r = done(new RelayTest(sim, { hysteresisC: 0, setpointC: 53 }).run());
