@@ -7,9 +7,17 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
 import { drillSchema } from "@/sim/drill/schema";
-import { noiseSigmaC, resolveCutout, resolveSensor } from "@/sim/drill/resolve";
+import { noiseSigmaC, resolveCutout, resolvePlant, resolveSensor } from "@/sim/drill/resolve";
 import { PLANT_PRESETS } from "@/sim/plant/presets";
-import { derivedFigures } from "@/sim/plant/derived-figures";
+import { derivedFigures, steadyStateTemperatureC } from "@/sim/plant/derived-figures";
+import type { PlantDefinition } from "@/sim/plant/plant-definition";
+import type { StampedAction } from "@/sim/drill/actions";
+import type { DrillInput } from "@/sim/drill/schema";
+import { PlantEditor } from "./plants/PlantEditor";
+import { PlantPicker } from "./plants/PlantPicker";
+import { RunHistory, type SavedRunFull } from "./saved/RunHistory";
+import { TuningSets } from "./saved/TuningSets";
+import { currentRunRecord, type CurrentRunRecord } from "./current-run";
 import { temperatureToDisplay } from "@/sim/units";
 import { Trend } from "@/components/trend/Trend";
 import { BENCH_DURATION_S, BENCH_START_TUNING, benchDrill, plantDefinitionOf, type BenchPlant } from "./bench-drill";
@@ -38,25 +46,56 @@ function isTyping(target: EventTarget | null) {
   return !!el && (el.tagName === "INPUT" || el.tagName === "SELECT" || el.tagName === "TEXTAREA" || el.isContentEditable);
 }
 
+/** What the worker runs: a fresh run on a plant, a restart with a new sample time, or a saved run reopened. */
+interface BenchRun {
+  drill: DrillInput;
+  controller: ControllerConfig;
+  seed: number;
+  actions: StampedAction[];
+  /** reopened saved runs replay to their end at once */
+  autoRun: boolean;
+}
+
+/** Trip point for a stored plant (the drill needs one): 90 % of the way from ambient to the 100 % steady state. */
+function defaultTripC(def: PlantDefinition): number {
+  const amb = steadyStateTemperatureC(def, 0);
+  return Math.round(amb + 0.9 * (steadyStateTemperatureC(def, 100) - amb));
+}
+
+function startingSetpoint(def: PlantDefinition): number {
+  const amb = steadyStateTemperatureC(def, 0);
+  const top = steadyStateTemperatureC(def, 100);
+  return top - amb > 70 ? 60 : Math.round(amb + 0.5 * (top - amb));
+}
+
 export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPresetId?: string }) {
   const engineRef = useRef<BenchEngine | null>(null);
   const [engine, setEngine] = useState<BenchEngine | null>(null);
+  const [plantRef, setPlantRef] = useState(`preset:${initialPresetId}`);
   const [plant, setPlant] = useState<BenchPlant>({ kind: "preset", presetId: initialPresetId });
   const [plantTitle, setPlantTitle] = useState(PLANT_PRESETS.find((p) => p.id === initialPresetId)?.title ?? "");
   const [controller, setController] = useState<ControllerConfig>(() => controllerConfigSchema.parse(BENCH_START_TUNING));
   const [seed] = useState(DEFAULT_SEED);
-  const [setpointC] = useState(60);
+  const [editing, setEditing] = useState<null | { plant?: { id: string; name: string; description: string; definition: PlantDefinition } }>(null);
+  const freshRun = useCallback(
+    (p: BenchPlant, title: string, cfg: ControllerConfig): BenchRun => {
+      const def = plantDefinitionOf(p);
+      return { drill: benchDrill({ plant: p, title, setpointC: startingSetpoint(def), reference: cfg, seed }), controller: cfg, seed, actions: [], autoRun: false };
+    },
+    [seed],
+  );
+  const [run, setRun] = useState<BenchRun>(() => freshRun({ kind: "preset", presetId: initialPresetId }, PLANT_PRESETS.find((p) => p.id === initialPresetId)?.title ?? "", controllerConfigSchema.parse(BENCH_START_TUNING)));
   // the snapshot changes at chunk rate: only the small live components below subscribe to it
   const { status, speed, events, units, showTruth, showRaw, helpOpen, engineVersion, error, set } = useBench(
     useShallow((s) => ({ status: s.status, speed: s.speed, events: s.events, units: s.units, showTruth: s.showTruth, showRaw: s.showRaw, helpOpen: s.helpOpen, engineVersion: s.engineVersion, error: s.error, set: s.set })),
   );
 
-  const drill = useMemo(() => benchDrill({ plant, title: plantTitle, setpointC, reference: controller, seed }), [plant, plantTitle, setpointC, seed, controller]);
+  const drill = run.drill;
   const parsedDrill = useMemo(() => drillSchema.parse(drill), [drill]);
   const sensor = useMemo(() => resolveSensor(parsedDrill), [parsedDrill]);
   const cutout = useMemo(() => resolveCutout(parsedDrill), [parsedDrill]);
   const spanC = sensor.transmitter.rangeHighC - sensor.transmitter.rangeLowC;
-  const definition = useMemo(() => plantDefinitionOf(plant), [plant]);
+  const definition = useMemo(() => resolvePlant(parsedDrill), [parsedDrill]);
   const figures = useMemo(() => derivedFigures(definition, Number(drill.initialState.outPercent ?? 30)), [definition, drill]);
 
   // one worker per Bench
@@ -67,48 +106,74 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
     return () => e.dispose();
   }, []);
 
-  // (re)load when the plant changes; tuning changes are applied live instead
-  const startController = useRef<ControllerConfig>(controller);
-  const load = useCallback(
-    (cfg: ControllerConfig) => {
-      startController.current = cfg;
-      engineRef.current?.load(benchDrill({ plant, title: plantTitle, setpointC, reference: cfg, seed }), cfg, seed);
-    },
-    [plant, plantTitle, setpointC, seed],
-  );
+  // every new run goes to the worker; tuning changes within a run are actions instead
   useEffect(() => {
-    if (engine) load(controller);
-    // controller excluded on purpose: applying a tuning must not restart the run
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [engine, load]);
+    if (!engine) return;
+    engine.load(run.drill, run.controller, run.seed, run.actions);
+    if (run.autoRun) engine.run("max");
+  }, [engine, run]);
+  const startController = run.controller;
+
+  const choosePlant = (ref: string, def: PlantDefinition, title: string) => {
+    const next: BenchPlant = ref.startsWith("preset:") ? { kind: "preset", presetId: ref.slice("preset:".length) } : { kind: "stored", definition: def, cutoutTripC: defaultTripC(def) };
+    setPlantRef(ref);
+    setPlant(next);
+    setPlantTitle(title);
+    setRun(freshRun(next, title, controller));
+  };
+  const restartWith = (cfg: ControllerConfig) => {
+    setController(cfg);
+    setRun(freshRun(plant, plantTitle, cfg));
+  };
+  const openSaved = (saved: SavedRunFull) => {
+    setController(controllerConfigSchema.parse(saved.controller));
+    setPlantRef(saved.plantRef);
+    setRun({ drill: saved.drill as DrillInput, controller: controllerConfigSchema.parse(saved.controller), seed: saved.seed, actions: saved.actionLog, autoRun: true });
+  };
 
   const act = engineRef.current;
+  const experiments = useExperiments();
+  const [testsTab, setTestsTab] = useState<"relay" | "bump" | "experiments">("experiments");
+  const loadTuning = (patch: Partial<ControllerConfig>) => {
+    const cfg = controllerConfigSchema.parse({ ...controller, ...patch });
+    if (cfg.sampleTimeS !== controller.sampleTimeS) return restartWith(cfg);
+    setController(cfg);
+    act?.act({ type: "tuning", controller: cfg });
+  };
+  const compareSaved = (runs: SavedRunFull[]) =>
+    experiments.start(
+      "saved",
+      runs.map((r) => ({ label: r.title || new Date(r.createdAt).toLocaleString("en-GB"), drill: r.drill, controller: r.controller, seed: r.seed, actions: r.actionLog })),
+    );
+
+  // the record RunHistory saves: computed once the run is paused, from the streamed trace
+  const [currentRun, setCurrentRun] = useState<CurrentRunRecord | null>(null);
+  useEffect(() => {
+    if (status !== "paused" || !engineRef.current) return;
+    const s = useBench.getState();
+    setCurrentRun(currentRunRecord({ drill, controller: startController, seed: run.seed, actions: s.actionLog, trace: engineRef.current.buffer.view(), events: s.events, engineVersion: s.engineVersion }));
+  }, [status, drill, startController, run.seed, events]);
+
   const [exportPending, setExportPending] = useState(false);
   const fingerprint = useBench((s) => s.fingerprint);
   useEffect(() => {
     if (!exportPending || !fingerprint) return;
     setExportPending(false);
     const s = useBench.getState();
-    const bundle = makeReplayBundle({ engineVersion: s.engineVersion, drill, controller: startController.current, seed, actions: s.actionLog, rows: fingerprint.rows, fingerprint: fingerprint.value });
+    const bundle = makeReplayBundle({ engineVersion: s.engineVersion, drill, controller: startController, seed: run.seed, actions: s.actionLog, rows: fingerprint.rows, fingerprint: fingerprint.value });
     const url = URL.createObjectURL(new Blob([JSON.stringify(bundle, null, 2)], { type: "application/json" }));
     const a = document.createElement("a");
     a.href = url;
     a.download = "loopwright-replay.json";
     a.click();
     setTimeout(() => URL.revokeObjectURL(url), 1000);
-  }, [exportPending, fingerprint, drill, seed]);
+  }, [exportPending, fingerprint, drill, startController, run.seed]);
   const exportReplay = () => {
     useBench.getState().set({ fingerprint: null });
     setExportPending(true);
     act?.requestFingerprint();
   };
-  const experiments = useExperiments();
-  const [testsTab, setTestsTab] = useState<"relay" | "bump" | "experiments">("experiments");
-  const loadTuning = (patch: Partial<ControllerConfig>) => {
-    const cfg = controllerConfigSchema.parse({ ...controller, ...patch });
-    setController(cfg);
-    act?.act({ type: "tuning", controller: cfg });
-  };
+
   const onSetpoint = (spC: number) => act?.act({ type: "setpoint", setpointC: spC });
   const onMode = (mode: "auto" | "manual") => act?.act({ type: "mode", mode });
   const onManualOutput = (outPercent: number) => act?.act({ type: "manual-output", outPercent });
@@ -156,37 +221,17 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
     return () => clearInterval(id);
   }, [sensor, cutout]);
 
-  const choosePreset = (id: string) => {
-    const p = PLANT_PRESETS.find((x) => x.id === id);
-    if (!p) return;
-    setPlant({ kind: "preset", presetId: id });
-    setPlantTitle(p.title);
-  };
-
   const t = (c: number) => `${temperatureToDisplay(c, units.temperature).toFixed(1)} °${units.temperature}`;
 
   return (
     <div className="grid gap-4 xl:grid-cols-[21rem_minmax(0,1fr)_20rem]">
       <aside className="space-y-4">
         <section aria-label="Plant" className="rounded-sm border border-rule bg-paper-raised p-4 text-sm">
-          <h2 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">Plant</h2>
-          <label className="sr-only" htmlFor="bench-plant">
-            Plant
-          </label>
-          <select id="bench-plant" value={plant.kind === "preset" ? plant.presetId : ""} onChange={(e) => choosePreset(e.target.value)} className="w-full rounded-sm border border-rule-strong bg-paper px-2 py-1.5 font-semibold">
-            {PLANT_PRESETS.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.title}
-              </option>
-            ))}
-          </select>
+          <PlantPicker value={plantRef} onChange={choosePlant} onEdit={(item) => setEditing({ plant: { id: item.id, name: item.title, description: item.description, definition: item.definition } })} />
+          <button type="button" onClick={() => setEditing({})} className="mt-2 text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+            Describe a new plant…
+          </button>
           <dl className="num mt-3 grid grid-cols-[1fr_auto] gap-y-1 text-xs">
-            <dt className="font-sans text-ink-soft">Static gain</dt>
-            <dd>{figures.staticGainCPerPercent.toFixed(2)} °C/%</dd>
-            <dt className="font-sans text-ink-soft">Dominant time constant</dt>
-            <dd>{(figures.dominantTimeConstantS / 60).toFixed(1)} min</dd>
-            <dt className="font-sans text-ink-soft">Apparent dead time</dt>
-            <dd>{figures.apparentDeadTimeS.toFixed(0)} s</dd>
             <dt className="font-sans text-ink-soft">Time to 63 %</dt>
             <dd>{(figures.timeTo63PercentS / 60).toFixed(1)} min</dd>
             <dt className="font-sans text-ink-soft">Transmitter range</dt>
@@ -208,11 +253,14 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
               setController(cfg);
               act?.act({ type: "tuning", controller: cfg });
             }}
-            onRestart={(cfg) => {
-              setController(cfg);
-              load(cfg);
-            }}
+            onRestart={restartWith}
           />
+        </section>
+        <section aria-label="Tuning sets" className="rounded-sm border border-rule bg-paper-raised p-4">
+          <TuningSets plantRef={plantRef} current={controller} onLoad={(cfg) => loadTuning(cfg)} />
+        </section>
+        <section aria-label="Saved runs" className="rounded-sm border border-rule bg-paper-raised p-4">
+          <RunHistory plantRef={plantRef} currentRun={currentRun ? { title: plantTitle, ...currentRun } : null} onOpen={openSaved} onCompare={compareSaved} />
         </section>
       </aside>
 
@@ -237,7 +285,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
         <LiveRunControls
           status={status}
           speed={speed}
-          seed={seed}
+          seed={run.seed}
           engineVersion={engineVersion}
           onRun={(s) => act?.run(s)}
           onPause={() => act?.pause()}
@@ -261,7 +309,9 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
         {experiments.state.status !== "idle" ? (
           <section aria-label="Experiment results" className="space-y-3 rounded-sm border border-rule bg-paper-raised p-4">
             <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-faint">
-              Experiment · {experiments.state.kind === "map" ? "tuning map" : experiments.state.kind === "compare" ? "PI vs PID" : "sweep"} · same proof test and seed for every run
+              {experiments.state.kind === "saved"
+                ? "Saved runs compared · each replayed from its own drill, seed and action log"
+                : `Experiment · ${experiments.state.kind === "map" ? "tuning map" : experiments.state.kind === "compare" ? "PI vs PID" : "sweep"} · same proof test and seed for every run`}
             </h2>
             {experiments.state.kind === "map" && experiments.state.meta?.kcAxis && experiments.state.meta.tiAxis ? (
               <TuningMap
@@ -307,7 +357,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
             ))}
           </div>
           {testsTab === "experiments" ? (
-            <ExperimentsPanel baseDrill={drill} controller={controller} seed={seed} state={experiments.state} start={experiments.start} cancel={experiments.cancel} />
+            <ExperimentsPanel baseDrill={drill} controller={controller} seed={run.seed} state={experiments.state} start={experiments.start} cancel={experiments.cancel} />
           ) : (
             <p className="text-sm text-ink-soft">Bring the loop near its operating point first (manual, or a settled auto run).</p>
           )}
@@ -317,6 +367,26 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
         </p>
       </aside>
       {helpOpen ? <HelpOverlay onClose={() => set({ helpOpen: false })} /> : null}
+      {editing ? (
+        <div className="fixed inset-0 z-40 flex items-start justify-center overflow-y-auto bg-ink/30 py-10" role="dialog" aria-modal="true" aria-label="Plant editor">
+          <div className="w-full max-w-3xl rounded-sm border border-rule bg-paper-raised p-5 shadow-lg">
+            <div className="mb-3 flex items-center justify-between">
+              <h2 className="text-sm font-semibold">{editing.plant ? `Edit ${editing.plant.name}` : "Describe a new plant"}</h2>
+              <button type="button" onClick={() => setEditing(null)} className="rounded-sm border border-rule-strong px-2 py-1 text-xs hover:border-ink">
+                Close
+              </button>
+            </div>
+            <PlantEditor
+              plant={editing.plant}
+              startFrom={definition}
+              onSaved={(ref, def, title) => {
+                setEditing(null);
+                choosePlant(ref, def, title);
+              }}
+            />
+          </div>
+        </div>
+      ) : null}
     </div>
   );
 }

@@ -4,7 +4,7 @@
  * TraceBuffer and moves the latest snapshot, events and action log into the store.
  */
 import type { ControllerConfigInput } from "@/sim/control/config";
-import type { OperatorActionInput } from "@/sim/drill/actions";
+import type { OperatorActionInput, StampedAction } from "@/sim/drill/actions";
 import type { DrillInput } from "@/sim/drill/schema";
 import type { BenchSpeed, FromWorker, ToWorker } from "@/sim/worker/protocol";
 import { useBench } from "./store";
@@ -51,9 +51,9 @@ export class BenchEngine {
     }
   }
 
-  load(drill: DrillInput, controller: ControllerConfigInput, seed: number) {
+  load(drill: DrillInput, controller: ControllerConfigInput, seed: number, actions: StampedAction[] = []) {
     useBench.getState().set({ status: "loading" });
-    this.send({ type: "load", drill, controller, seed });
+    this.send({ type: "load", drill, controller, seed, actions });
   }
   run(speed: BenchSpeed) {
     this.send({ type: "run", speed });

@@ -1,16 +1,26 @@
 /**
- * Running one drill under several controller configurations: the common core of a sweep, the
- * PI-versus-PID comparison and the tuning map. A generator, so the caller (the experiments worker)
- * can report progress and honour a cancel between runs.
+ * Running a list of runs (drill, controller, seed, optional action log): the common core of a
+ * sweep, the PI-versus-PID comparison, the tuning map and the comparison of saved runs. A
+ * generator, so the caller (an experiments worker) can report progress and honour a cancel
+ * between runs.
  */
 import { controllerConfigSchema, type ControllerConfig, type ControllerConfigInput } from "../control/config";
 import { drillSchema, type Drill, type DrillInput } from "../drill/schema";
 import { runDrill } from "../drill/run-drill";
 import type { RunResults } from "../drill/results";
+import type { StampedAction } from "../drill/actions";
 
 export interface Variant {
   label: string;
   controller: ControllerConfigInput;
+}
+
+export interface RunJob {
+  label: string;
+  drill: Drill | DrillInput;
+  controller: ControllerConfigInput;
+  seed: number;
+  actions?: StampedAction[];
 }
 
 export interface VariantRun {
@@ -23,14 +33,20 @@ export interface VariantRun {
   trueC: Float64Array;
 }
 
-export function* runVariants(drillIn: Drill | DrillInput, variants: readonly Variant[], seed: number, keepTraces = true): Generator<VariantRun> {
-  const drill = drillSchema.parse(drillIn);
-  for (let i = 0; i < variants.length; i++) {
-    const controller = controllerConfigSchema.parse(variants[i].controller);
-    const run = runDrill(drill, controller, [], seed);
+/** The same drill and seed under each variant's controller. */
+export function jobsFor(drill: Drill | DrillInput, variants: readonly Variant[], seed: number): RunJob[] {
+  const parsed = drillSchema.parse(drill); // once, not per job
+  return variants.map((v) => ({ label: v.label, drill: parsed, controller: v.controller, seed }));
+}
+
+export function* runJobs(jobs: readonly RunJob[], keepTraces = true): Generator<VariantRun> {
+  for (let i = 0; i < jobs.length; i++) {
+    const job = jobs[i];
+    const controller = controllerConfigSchema.parse(job.controller);
+    const run = runDrill(job.drill, controller, job.actions ?? [], job.seed);
     yield {
       index: i,
-      label: variants[i].label,
+      label: job.label,
       controller,
       results: run.results,
       timeS: keepTraces ? run.trace.timeS.slice() : new Float64Array(0),

@@ -3,7 +3,7 @@
  * worker globals), so the pacing and chunking are tested in Node.
  */
 import { controllerConfigSchema, type ControllerConfigInput } from "../control/config";
-import { operatorActionSchema, type OperatorActionInput } from "../drill/actions";
+import { actionLogSchema, operatorActionSchema, type OperatorActionInput, type StampedAction } from "../drill/actions";
 import { drillSchema, type DrillInput } from "../drill/schema";
 import { Simulation } from "../drill/simulation";
 import type { FromWorker } from "./protocol";
@@ -14,11 +14,13 @@ export class BenchSession {
   private eventsStreamed = 0;
   private actionsStreamed = 0;
 
-  constructor(drill: DrillInput, controller?: ControllerConfigInput, seed?: number) {
+  /** `actions`: a recorded log to replay (a saved run reopened); they apply at their stamps. */
+  constructor(drill: DrillInput, controller?: ControllerConfigInput, seed?: number, actions: readonly StampedAction[] = []) {
     this.simulation = new Simulation(drillSchema.parse(drill), {
       controller: controller ? controllerConfigSchema.parse(controller) : undefined,
       seed,
     });
+    if (actions.length) this.simulation.schedule(actionLogSchema.parse(actions));
   }
 
   get sampleTimeS(): number {

@@ -65,7 +65,7 @@ function setRunning(on: boolean) {
 
 function load(msg: Extract<ToWorker, { type: "load" }>) {
   loadMessage = msg;
-  session = new BenchSession(msg.drill, msg.controller, msg.seed);
+  session = new BenchSession(msg.drill, msg.controller, msg.seed, msg.actions);
   post({ type: "loaded", engineVersion: session.simulation.engineVersion, sampleTimeS: session.sampleTimeS, seed: session.simulation.seed });
   session.stepSamples(1); // the first row, so the faceplate has readings at once
   flush();

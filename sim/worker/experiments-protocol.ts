@@ -1,9 +1,8 @@
 /** Messages to and from the experiments worker (sweeps, comparisons, tuning maps). */
-import type { DrillInput } from "../drill/schema";
-import type { Variant, VariantRun } from "../experiments/variants";
+import type { RunJob, VariantRun } from "../experiments/variants";
 
 export type ToExperiments =
-  | { type: "start"; id: number; drill: DrillInput; variants: Variant[]; seed: number; keepTraces: boolean }
+  | { type: "start"; id: number; jobs: RunJob[]; keepTraces: boolean }
   | { type: "cancel"; id: number };
 
 export type FromExperiments =

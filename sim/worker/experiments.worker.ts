@@ -3,7 +3,7 @@
  * Runs experiment variants off the main thread and off the live Bench worker, one run at a time,
  * yielding to the event loop between runs so a cancel arrives promptly.
  */
-import { runVariants } from "../experiments/variants";
+import { runJobs } from "../experiments/variants";
 import type { FromExperiments, ToExperiments } from "./experiments-protocol";
 
 declare const self: DedicatedWorkerGlobalScope;
@@ -16,10 +16,10 @@ const yieldToEvents = () => new Promise<void>((r) => setTimeout(r, 0));
 async function start(msg: Extract<ToExperiments, { type: "start" }>) {
   current = msg.id;
   const t0 = performance.now();
-  const total = msg.variants.length;
+  const total = msg.jobs.length;
   try {
     let done = 0;
-    for (const run of runVariants(msg.drill, msg.variants, msg.seed, msg.keepTraces)) {
+    for (const run of runJobs(msg.jobs, msg.keepTraces)) {
       done++;
       post({ type: "row", id: msg.id, run }, msg.keepTraces ? [run.timeS.buffer as ArrayBuffer, run.trueC.buffer as ArrayBuffer] : []);
       post({ type: "progress", id: msg.id, done, total });

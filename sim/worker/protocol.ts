@@ -12,7 +12,7 @@ import type { Trace } from "../drill/trace";
 export type BenchSpeed = number | "max";
 
 export type ToWorker =
-  | { type: "load"; drill: DrillInput; controller?: ControllerConfigInput; seed?: number }
+  | { type: "load"; drill: DrillInput; controller?: ControllerConfigInput; seed?: number; actions?: StampedAction[] }
   | { type: "run"; speed: BenchSpeed }
   | { type: "pause" }
   | { type: "step"; samples: number }

@@ -6,14 +6,14 @@
  */
 import { useState } from "react";
 import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
-import type { Variant } from "@/sim/experiments/variants";
+import { jobsFor, type RunJob, type Variant } from "@/sim/experiments/variants";
 import type { DrillInput } from "@/sim/drill/schema";
 import { experimentDrill, type ProofTest } from "@/sim/experiments/experiment-drill";
 import { parseValueList, piVersusPidVariants, SWEEP_PARAMETERS, sweepVariants, type SweepParameter } from "@/sim/experiments/sweep";
 import { geometricAxis, MAP_METRICS, mapVariants, type MapMetric } from "@/sim/experiments/tuning-map";
 import type { ExperimentState } from "./use-experiments";
 
-type Start = (kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], seed: number, meta?: ExperimentState["meta"]) => void;
+type Start = (kind: ExperimentState["kind"], jobs: RunJob[], meta?: ExperimentState["meta"]) => void;
 
 export function ExperimentsPanel({ baseDrill, controller, seed, state, start, cancel }: { baseDrill: DrillInput; controller: ControllerConfig; seed: number; state: ExperimentState; start: Start; cancel: () => void }) {
   const [tab, setTab] = useState<"sweep" | "compare" | "map">("sweep");
@@ -32,7 +32,7 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
   const running = state.status === "running";
   const launch = (kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], meta?: ExperimentState["meta"]) => {
     setLastRun({ drill, variants });
-    start(kind, drill, variants, seed, meta);
+    start(kind, jobsFor(drill, variants, seed), meta);
   };
   const exportExperiment = () => {
     if (!lastRun) return;

@@ -5,12 +5,11 @@
  * rows are merged back in variant order.
  */
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { DrillInput } from "@/sim/drill/schema";
-import type { Variant, VariantRun } from "@/sim/experiments/variants";
+import type { RunJob, VariantRun } from "@/sim/experiments/variants";
 import type { FromExperiments, ToExperiments } from "@/sim/worker/experiments-protocol";
 
 export interface ExperimentState {
-  kind: "sweep" | "compare" | "map" | null;
+  kind: "sweep" | "compare" | "map" | "saved" | null;
   status: "idle" | "running" | "done" | "cancelled" | "error";
   done: number;
   total: number;
@@ -65,16 +64,16 @@ export function useExperiments() {
   };
 
   const start = useCallback(
-    (kind: ExperimentState["kind"], drill: DrillInput, variants: Variant[], seed: number, meta?: ExperimentState["meta"]) => {
+    (kind: ExperimentState["kind"], jobs: RunJob[], meta?: ExperimentState["meta"]) => {
       const id = ++runId.current;
-      const slots = Math.min(poolSize(), variants.length);
-      setState({ ...idle, kind, status: "running", total: variants.length, meta });
+      const slots = Math.max(1, Math.min(poolSize(), jobs.length));
+      setState({ ...idle, kind, status: "running", total: jobs.length, meta });
       startedAt.current = performance.now();
       pending.current = slots;
       ensureWorkers(slots).forEach((w, slot) => {
         w.onmessage = onMessage(slot, slots);
-        const mine = variants.filter((_, i) => i % slots === slot);
-        const msg: ToExperiments = { type: "start", id, drill, variants: mine, seed, keepTraces: kind !== "map" };
+        const mine = jobs.filter((_, i) => i % slots === slot);
+        const msg: ToExperiments = { type: "start", id, jobs: mine, keepTraces: kind !== "map" };
         w.postMessage(msg);
       });
     },
