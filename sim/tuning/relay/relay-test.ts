@@ -44,8 +44,12 @@ export interface RelayTestOptions {
   lowPercent?: number;
   /** ε, °C: the relay switches when PV passes SP ± ε; default max(3σ of the quiet window, 0.05 °C) */
   hysteresisC?: number;
-  /** cycles discarded before measuring; default 1 */
+  /** cycles discarded before measuring; default 1. Settling is extended (up to maxSettlingCycles)
+   *  while a cycle's period or amplitude still differs from the previous one's by more than 3 % / 5 %
+   *  (an oscillation that is still building up, as on a plant with little dead time) */
   settlingCycles?: number;
+  /** default 10 */
+  maxSettlingCycles?: number;
   /** cycles measured and averaged; default 3 */
   cycles?: number;
   /** abort if the relay has not finished within this time, s; default 14400 */
@@ -109,6 +113,8 @@ export interface RelayResult {
   /** (high + low)/2 − OUT at start, %: non-zero when a level was clipped */
   biasPercent: number;
   hysteresisC: number;
+  /** cycles discarded before the measured ones (more than asked when the oscillation was still building up) */
+  settlingCyclesUsed: number;
   /** a, °C */
   amplitudeC: number;
   /** PV oscillation centre minus SP, °C (a biased relay shifts it) */
@@ -157,7 +163,9 @@ function roundUp2(x: number): number {
 
 export class RelayTest {
   private phaseValue: RelayPhase = "quiet";
-  private readonly o: Required<Pick<RelayTestOptions, "amplitudePercent" | "settlingCycles" | "cycles" | "timeLimitS" | "minHalfPeriodSamples">> & RelayTestOptions;
+  private readonly o: Required<Pick<RelayTestOptions, "amplitudePercent" | "settlingCycles" | "maxSettlingCycles" | "cycles" | "timeLimitS" | "minHalfPeriodSamples">> & RelayTestOptions;
+  /** index of the first measured cycle (cycle c spans half-periods 2c and 2c + 1) */
+  private measureFrom: number;
   private readonly ts: number;
   private readonly originalConfig: ControllerConfig;
   private readonly mode0: "auto" | "manual";
@@ -188,7 +196,8 @@ export class RelayTest {
 
   constructor(readonly sim: Simulation, options: RelayTestOptions = {}) {
     const defined = Object.fromEntries(Object.entries(options).filter(([, v]) => v !== undefined)) as RelayTestOptions;
-    this.o = { amplitudePercent: 10, settlingCycles: 1, cycles: 3, timeLimitS: 14400, minHalfPeriodSamples: 4, ...defined };
+    this.o = { amplitudePercent: 10, settlingCycles: 1, maxSettlingCycles: 10, cycles: 3, timeLimitS: 14400, minHalfPeriodSamples: 4, ...defined };
+    this.measureFrom = this.o.settlingCycles;
     this.ts = sim.sampleTimeS;
     this.originalConfig = sim.controllerConfig;
     const st = sim.controllerState;
@@ -214,7 +223,7 @@ export class RelayTest {
 
   get progress(): RelayProgress {
     const hp = this.halfPeriods();
-    const measuredFrom = 2 * this.o.settlingCycles;
+    const measuredFrom = 2 * this.measureFrom;
     const cycleCount = Math.floor(hp.length / 2);
     let amp: number | null = null;
     let ku: number | null = null;
@@ -292,6 +301,16 @@ export class RelayTest {
       hi = Math.max(hi, this.rowPv[i]);
     }
     return (hi - lo) / 2;
+  }
+
+  /** Cycles a and b agree within 3 % in period and 5 % in amplitude. */
+  private similarCycles(a: number, b: number): boolean {
+    const hp = this.halfPeriods();
+    const pa = hp[2 * a] + hp[2 * a + 1];
+    const pb = hp[2 * b] + hp[2 * b + 1];
+    const aa = this.cycleAmplitude(a);
+    const ab = this.cycleAmplitude(b);
+    return Math.abs(pa - pb) <= 0.03 * pa && Math.abs(aa - ab) <= 0.05 * aa;
   }
 
   private stepQuiet(): void {
@@ -398,7 +417,15 @@ export class RelayTest {
           );
         }
       }
-      const needed = 2 * (this.o.settlingCycles + this.o.cycles) + 1;
+      if (n % 2 === 1 && n >= 3) {
+        const c = (n - 1) / 2 - 1; // the cycle that just completed
+        if (c === this.measureFrom && c >= 1 && !this.similarCycles(c, c - 1)) {
+          if (this.measureFrom < this.o.maxSettlingCycles) this.measureFrom++;
+          else if (!this.warnings.some((w) => w.startsWith("the oscillation")))
+            this.warnings.push(`the oscillation was still changing after ${this.measureFrom} settling cycles: Ku and Pu come from cycles that had not settled`);
+        }
+      }
+      const needed = 2 * (this.measureFrom + this.o.cycles) + 1;
       if (n >= needed) return this.finishMeasurement();
     }
     if (s.timeS - this.relayStartS > this.o.timeLimitS)
@@ -410,7 +437,7 @@ export class RelayTest {
 
   private finishMeasurement(): void {
     const hp = this.halfPeriods();
-    const first = 2 * this.o.settlingCycles;
+    const first = 2 * this.measureFrom;
     const d = (this.high - this.low) / 2;
     let amp = 0;
     let highH = 0;
@@ -418,7 +445,7 @@ export class RelayTest {
     // which half-periods are "high": the relay starts high, so switch 0 is high → low
     const startsHigh = this.rowOut[this.switchRows[0]] === this.low;
     for (let c = 0; c < this.o.cycles; c++) {
-      const cc = this.o.settlingCycles + c;
+      const cc = this.measureFrom + c;
       amp += this.cycleAmplitude(cc) / this.o.cycles;
       const a = hp[2 * cc];
       const b = hp[2 * cc + 1];
@@ -469,6 +496,7 @@ export class RelayTest {
       dPercent: d,
       biasPercent: (this.high + this.low) / 2 - this.out0,
       hysteresisC: this.eps,
+      settlingCyclesUsed: this.measureFrom,
       amplitudeC: amp,
       centreOffsetC: (hi + lo) / 2 - start.relayCentreC,
       highHalfPeriodS: highH,

@@ -94,6 +94,40 @@ describe("relay test on the engine: FOPDT", () => {
     expect(r.proposal.tunings.length).toBeGreaterThan(10);
   });
 
+  it("third-order plant 1/((3s+1)(2s+1)(s+1)) (the third lag as the sensor's): relay a 0.13089·h, P 6.388, Ku 9.727 vs exact 10 (references §1/§2)", () => {
+    const sim = new Simulation(
+      drill({
+        durationS: 100,
+        plant: { ...fopdtPlant(1, 3, 0, 1), timeConstantsS: [3, 2] },
+        initialState: { temperatures: { kind: "steady", outPercent: 50 }, mode: "manual", setpointC: 50, outPercent: 50 },
+        sensor: QUIET,
+        referenceTuning: { kind: "pid", kc: 2, ti: 10, sampleTimeS: 0.002 },
+      }),
+    );
+    const r = done(new RelayTest(sim, { hysteresisC: 0, sensorLagS: 0 }).run());
+    expect(rel(r.amplitudeC, 1.3089)).toBeLessThan(5e-3);
+    expect(rel(r.puS, 6.388)).toBeLessThan(5e-3);
+    expect(rel(r.ku, 9.727)).toBeLessThan(5e-3);
+    expect(r.ku).toBeLessThan(10); // the describing function underestimates Ku here too
+    // without dead time the oscillation builds up from nothing: settling was extended automatically
+    expect(r.settlingCyclesUsed).toBeGreaterThan(1);
+  });
+
+  it("stops before the relay when asked to, if the hysteresis is under 3σ of the noise (Bequette §11.3: ε ≥ 2–3σ)", () => {
+    const sim = new Simulation(
+      drill({
+        durationS: 100,
+        plant: fopdtPlant(1, 10, 2),
+        initialState: { temperatures: { kind: "steady", outPercent: 50 }, mode: "manual", setpointC: 50, outPercent: 50 },
+        sensor: { ...QUIET, noise: { sdMa: 0.02 } }, // 0.25 °C on a 200 °C span
+        referenceTuning: { kind: "pid", kc: 2, ti: 10, sampleTimeS: 0.01 },
+      }),
+    );
+    const r = new RelayTest(sim, { hysteresisC: 0.1, stopOnNoiseWarning: true }).run();
+    expect(!r.ok && r.code).toBe("noise-warning");
+    expect(!r.ok && r.message).toMatch(/less than 3σ/);
+  });
+
   it("reports live progress: crossings, half-periods, amplitude and running estimates", () => {
     const test = new RelayTest(fopdtSim(0.01), { hysteresisC: 0 });
     const seen: number[] = [];
