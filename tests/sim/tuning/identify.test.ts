@@ -70,6 +70,13 @@ describe("bump-test identification", () => {
     expect(id.warnings).toEqual([]);
   }, 30_000);
 
+  it("a downward step identifies the same (positive) gain", () => {
+    const id = ok(identifyStepResponse(makeRecord({ ...base, out: (t) => (t < 60 ? 50 : 20) }), fast));
+    within(id.fopdt.model.gainCPerPercent, 0.8, 0.05);
+    within(id.fopdt.model.timeConstantS, 120, 0.05);
+    within(id.fopdt.model.deadTimeS, 15, 0.05);
+  }, 30_000);
+
   it("fits an SOPDT plant with the SOPDT model and prefers it", () => {
     const rec = makeRecord({ ...base, model: { gain: 1.2, taus: [200, 50], deadTime: 20 }, durationS: 1800, noiseSigma: 0.1 });
     const id = ok(identifyStepResponse(rec));

@@ -128,6 +128,22 @@ describe("relay test on the engine: FOPDT", () => {
     expect(!r.ok && r.message).toMatch(/less than 3σ/);
   });
 
+  it("direct-acting loop (a cooled process, K = −1 °C/%): the same Ku and Pu", () => {
+    const sim = new Simulation(
+      drill({
+        durationS: 100,
+        plant: fopdtPlant(-1, 10, 2),
+        initialState: { temperatures: { kind: "steady", outPercent: 50 }, mode: "manual", setpointC: 50, outPercent: 50 },
+        sensor: QUIET,
+        referenceTuning: { kind: "pid", kc: 2, ti: 10, sampleTimeS: 0.005, action: "direct" },
+      }),
+    );
+    const r = done(new RelayTest(sim, { hysteresisC: 0 }).run());
+    expect(rel(r.ku, 7.02402)).toBeLessThan(5e-3);
+    expect(rel(r.puS, 7.33179)).toBeLessThan(5e-3);
+    expect(r.fopdt.model?.gainCPerPercent).toBeCloseTo(1, 9); // the magnitude, for the rules
+  });
+
   it("reports live progress: crossings, half-periods, amplitude and running estimates", () => {
     const test = new RelayTest(fopdtSim(0.01), { hysteresisC: 0 });
     const seen: number[] = [];
