@@ -380,6 +380,8 @@ export class RelayTest {
     });
     this.sim.act({ type: "tuning", controller: relayCfg });
     this.sim.act({ type: "mode", mode: "auto" });
+    // with SP tracking, the kick sample (still manual) moved SP to the PV once more: pin it back
+    this.sim.act({ type: "setpoint", setpointC: this.start!.relayCentreC });
     this.relayStartS = this.sim.timeS;
     this.lastOut = this.high;
     this.phaseValue = "relay";

@@ -54,13 +54,13 @@ describe("exact FOPDT relations (references §1)", () => {
 });
 
 // FOPDT K = 1 °C/%, τ = 10 s, θ = 2 s around (50 %, 50 °C), relay ±10 % (h = 10, so a and ε scale by 10)
-function fopdtSim(sampleTimeS = 0.005, out = 50, mode: "auto" | "manual" = "manual", extra: Record<string, unknown> = {}) {
+function fopdtSim(sampleTimeS = 0.005, out = 50, mode: "auto" | "manual" = "manual", extra: Record<string, unknown> = {}, noiseSdMa = 0) {
   return new Simulation(
     drill({
       durationS: 100,
       plant: fopdtPlant(1, 10, 2),
       initialState: { temperatures: { kind: "steady", outPercent: out }, mode, setpointC: 50 + (out - 50), outPercent: out },
-      sensor: QUIET,
+      sensor: { ...QUIET, noise: { sdMa: noiseSdMa } },
       referenceTuning: { kind: "pid", kc: 2, ti: 10, sampleTimeS, ...extra },
     }),
   );
@@ -170,7 +170,7 @@ describe("relay test on the engine: FOPDT", () => {
   });
 
   it("hands back bumplessly: manual at the mean relay OUT, the original tuning and mode (auto), SP restored", () => {
-    const sim = fopdtSim(0.01, 50, "auto", { spTrackInManual: true });
+    const sim = fopdtSim(0.01, 50, "auto", { spTrackInManual: true }, 0.002); // 0.025 °C of noise: SP tracking moves SP
     const before = sim.controllerConfig;
     const r = done(new RelayTest(sim, { hysteresisC: 0.2 }).run());
     expect(r.start.setpointTracksPv).toBe(true);
