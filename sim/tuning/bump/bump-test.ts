@@ -67,6 +67,7 @@ export class BumpTest {
   private readonly rec: BumpRecord = { t: [], out: [], pv: [] };
   private readonly out0: number;
   private readonly mode0: "auto" | "manual";
+  private readonly sp0: number;
   private readonly preS: number;
   private readonly respS: number;
   private readonly t0: number;
@@ -80,6 +81,7 @@ export class BumpTest {
     const st = sim.controllerState;
     this.out0 = st.out;
     this.mode0 = st.mode;
+    this.sp0 = st.sp;
     this.t0 = sim.timeS;
     this.preS = o.preStepS ?? Math.max(60, 30 * sim.sampleTimeS);
     this.respS = o.responseS ?? Math.min(12 * 3600, 6 * dominantTimeConstantS(sim.plantDefinition));
@@ -144,7 +146,11 @@ export class BumpTest {
       }
       case "returning": {
         sim.step();
-        if (this.returnStage === 0 && this.mode0 === "auto") sim.act({ type: "mode", mode: "auto" });
+        if (this.returnStage === 0 && this.mode0 === "auto") {
+          // SP tracking in manual may have moved SP with the PV: back to the operator's SP
+          if (sim.controllerConfig.spTrackInManual) sim.act({ type: "setpoint", setpointC: this.sp0 });
+          sim.act({ type: "mode", mode: "auto" });
+        }
         if (this.returnStage++ >= 1) this.finish();
         break;
       }
