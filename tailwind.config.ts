@@ -16,7 +16,7 @@ const config: Config = {
     extend: {
       colors: {
         paper: { DEFAULT: "#f6f5f1", raised: "#fbfaf7", sunk: "#eceae4" },
-        ink: { DEFAULT: "#1f2326", soft: "#4b5258", faint: "#7c848a" },
+        ink: { DEFAULT: "#1f2326", soft: "#4b5258", faint: "#5f666c" }, // faint keeps 4.5:1 on paper-sunk (WCAG 2.1 AA)
         rule: { DEFAULT: "#d8d5cc", strong: "#b9b5aa" },
         trace: traceColors,
         alarm: { DEFAULT: "#c62828", soft: "#fbe9e7" },

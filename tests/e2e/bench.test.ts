@@ -62,6 +62,31 @@ describe("the Bench", () => {
     expect(replay.matches).toBe(true);
   });
 
+  it("a saved run reopens and replays the same trend", async () => {
+    const title = `step to 72 °C ${Date.now()}`;
+    await page.getByRole("button", { name: "Export replay file" }).click();
+    const before = (await page.getByTestId("trace-fingerprint").textContent())!;
+    await page.getByLabel("Run title").fill(title);
+    await page.getByRole("button", { name: "Save this run" }).click();
+    await page.getByRole("cell", { name: title }).first().waitFor();
+
+    await page.reload();
+    await page.getByTestId("pv-readout").filter({ hasText: /\d/ }).waitFor();
+    const row = page.getByRole("row").filter({ hasText: title });
+    await row.getByRole("button", { name: "Open" }).click();
+    // the worker replays it to its end at full speed; ask for the fingerprint until it has
+    await expect
+      .poll(
+        async () => {
+          await page.getByRole("button", { name: "Export replay file" }).click();
+          await page.waitForTimeout(250);
+          return page.getByTestId("trace-fingerprint").textContent();
+        },
+        { timeout: 20_000, interval: 300 },
+      )
+      .toBe(before);
+  });
+
   it("a sweep of five PV filter values gives five rows equal to the CLI's results", async () => {
     await page.getByRole("tab", { name: "Experiments" }).click();
     await page.getByRole("tab", { name: "Sweep" }).click();
