@@ -4,8 +4,9 @@
  * (e.g. Åström & Wittenmark, Computer-Controlled Systems, sampling of a first-order system).
  * τ = 0 turns the filter off (α = 1).
  */
+import { detExpm1 } from "../numeric/det-math";
 export function pvFilterAlpha(tauS: number, sampleTimeS: number): number {
-  return tauS > 0 ? 1 - Math.exp(-sampleTimeS / tauS) : 1;
+  return tauS > 0 ? -detExpm1(-sampleTimeS / tauS) : 1;
 }
 
 export class PvFilter {

@@ -15,6 +15,7 @@
 import type { WindowResults } from "../results/window";
 import type { Drill } from "./schema";
 import type { RunResults } from "./results";
+import { detPowInt } from "../numeric/det-math";
 
 export const SCORE_FORMULA =
   "Per window: c = (attempt + ε)/(reference + ε) for IAE, overshoot or peak deviation, and settling or recovery time; " +
@@ -64,7 +65,7 @@ export function scoreAttempt(drill: Drill, attempt: RunResults, reference: RunRe
   const wSum = windows.reduce((s, w) => s + w.weight, 0);
   const mean = windows.reduce((s, w) => s + w.weight * w.score, 0) / wSum;
   const trips = attempt.safetyTrips.length;
-  const total = mean * Math.pow(drill.scoring.tripPenaltyFactor, trips);
+  const total = mean * detPowInt(drill.scoring.tripPenaltyFactor, trips);
   return {
     engineVersion: attempt.engineVersion,
     score: Math.round(Math.min(100, Math.max(0, total)) * 10) / 10,

@@ -8,6 +8,7 @@
  * 2^{3−(p+q)} p! q! / ((p+q)! (p+q+1)!) ≈ 3.4e-16 (Moler & Van Loan's bound); then it is squared
  * s times. Row-major n×n arrays.
  */
+
 export function matMul(a: Float64Array, b: Float64Array, n: number, out = new Float64Array(n * n)): Float64Array {
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
@@ -57,8 +58,13 @@ export function matrixExponential(a: ArrayLike<number>, n: number, h = 1): Float
     for (let j = 0; j < n; j++) row += Math.abs(a[i * n + j] * h);
     norm = Math.max(norm, row);
   }
-  const s = Math.max(0, Math.ceil(Math.log2(norm)) + 1);
-  const scale = h / Math.pow(2, s);
+  // s = max(1, ⌈log2(norm)⌉ + 1) found by halving (exact), so every engine picks the same s
+  let s = 1;
+  let scale = h / 2;
+  for (let m = norm; m > 1; m /= 2) {
+    s++;
+    scale /= 2;
+  }
   const as = new Float64Array(n * n);
   for (let i = 0; i < n * n; i++) as[i] = a[i] * scale;
   const ident = new Float64Array(n * n);

@@ -15,6 +15,7 @@
  */
 import { symmetricEigen } from "./symmetric-eigen";
 import { conductanceMatrix, type ThermalNetwork } from "./thermal-network";
+import { detExp, detExpm1 } from "../numeric/det-math";
 
 interface StepCoefficients {
   h: number;
@@ -26,9 +27,9 @@ interface StepCoefficients {
 /** (e^{a h} − e^{b h})/(a − b), accurate for a ≈ b (divided difference of exp). */
 export function expDividedDifference(a: number, b: number, h: number): number {
   const x = (a - b) * h;
-  if (Math.abs(x) > 0.5) return (Math.exp(a * h) - Math.exp(b * h)) / (a - b);
-  const r = x === 0 ? 1 : Math.expm1(x) / x;
-  return Math.exp(b * h) * h * r;
+  if (Math.abs(x) > 0.5) return (detExp(a * h) - detExp(b * h)) / (a - b);
+  const r = x === 0 ? 1 : detExpm1(x) / x;
+  return detExp(b * h) * h * r;
 }
 
 export class ModalStepper {
@@ -142,10 +143,10 @@ export class ModalStepper {
     const m = this.tau.length;
     const c = into ?? { h, modeDecay: new Float64Array(n), sensorDecay: new Float64Array(m), sensorGain: new Float64Array(m * n) };
     c.h = h;
-    for (let k = 0; k < n; k++) c.modeDecay[k] = Math.exp(this.lambda[k] * h);
+    for (let k = 0; k < n; k++) c.modeDecay[k] = detExp(this.lambda[k] * h);
     for (let j = 0; j < m; j++) {
       const mu = -1 / this.tau[j];
-      c.sensorDecay[j] = Math.exp(mu * h);
+      c.sensorDecay[j] = detExp(mu * h);
       for (let k = 0; k < n; k++) c.sensorGain[j * n + k] = (this.airRow[k] / this.tau[j]) * expDividedDifference(this.lambda[k], mu, h);
     }
     return c;

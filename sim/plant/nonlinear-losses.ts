@@ -17,7 +17,7 @@ export interface NonlinearLossParams {
 /** Heat flow from the wall skin at tWallC to surroundings at tAmbC, W. */
 export function outerLossW(p: NonlinearLossParams, tWallC: number, tAmbC: number): number {
   const dt = tWallC - tAmbC;
-  const conv = p.convectionCoefficient * Math.pow(Math.abs(dt), 0.25) * dt;
+  const conv = p.convectionCoefficient * Math.sqrt(Math.sqrt(Math.abs(dt))) * dt; // ΔT^¼ by two correctly rounded square roots
   const tw = tWallC + ZERO_CELSIUS_K;
   const ta = tAmbC + ZERO_CELSIUS_K;
   const rad = p.emissivity * STEFAN_BOLTZMANN_W_PER_M2_K4 * (tw * tw * tw * tw - ta * ta * ta * ta);
@@ -45,7 +45,7 @@ function skinSolve(p: NonlinearLossParams, rInsKPerW: number, tWallC: number, tA
   for (let it = 0; it < 60; it++) {
     // f(T_s) = (T_w − T_s)/R − A[c|ΔT|^¼ΔT + εσ(T_s⁴ − T∞⁴)], f' = −1/R − A[(5/4)c|ΔT|^¼ + 4εσT_s³]
     const dt = ts - tAmbC;
-    const q = Math.pow(Math.abs(dt), 0.25);
+    const q = Math.sqrt(Math.sqrt(Math.abs(dt)));
     const tk = ts + ZERO_CELSIUS_K;
     const tk3 = tk * tk * tk;
     const fv = (tWallC - ts) / rInsKPerW - p.areaM2 * (p.convectionCoefficient * q * dt + es * (tk3 * tk - ta4));
