@@ -34,6 +34,12 @@ Commands:
   replay <replay.json>    Re-run a replay file exported from the Bench (drill, controller, seed,
                           action log); prints the trace fingerprint, whether it matches the
                           file's, and the results. Exit 1 when the fingerprints differ.
+  autotune <drill.json> --method relay|bump [--rule NAME] [--form standard|parallel|series]
+                          Run a relay test (closed loop) or a bump test (open loop) on the drill's
+                          plant from its starting point and print the identified model, the
+                          proposed tunings and their robustness as JSON (autotune --help).
+  identify <data.csv>     Fit FOPDT and SOPDT models to a logged bump test (columns time, OUT %,
+                          PV); prints the fits with R² and NRMSE, or a refusal (identify --help).
   help, --help, -h        Show this text.
 
 Exit status: 0 success; 1 usage error; 2 invalid or unreadable input file.
@@ -164,6 +170,8 @@ function main(argv: string[]): number {
 // Commands with their own modules (and their own options) in sim/cli/commands/.
 const MODULE_COMMANDS: Record<string, () => Promise<(argv: string[]) => Promise<number>>> = {
   replay: async () => (await import("./commands/replay")).runReplayCommand,
+  autotune: async () => (await import("./commands/autotune")).runAutotuneCommand,
+  identify: async () => (await import("./commands/identify")).runIdentifyCommand,
 };
 
 async function entry(argv: string[]): Promise<number> {
