@@ -6,6 +6,8 @@
 import type { ControllerConfigInput } from "@/sim/control/config";
 import type { OperatorActionInput, StampedAction } from "@/sim/drill/actions";
 import type { DrillInput } from "@/sim/drill/schema";
+import type { BumpTestOptions } from "@/sim/tuning/bump/bump-test";
+import type { RelayTestOptions } from "@/sim/tuning/relay/relay-test";
 import type { BenchSpeed, FromWorker, ToWorker } from "@/sim/worker/protocol";
 import { useBench } from "./store";
 import { TraceBuffer } from "./trace-buffer";
@@ -29,7 +31,7 @@ export class BenchEngine {
     switch (msg.type) {
       case "loaded":
         this.buffer.clear();
-        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, fingerprint: null, status: "paused" });
+        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, fingerprint: null, status: "paused", test: null });
         break;
       case "chunk":
         this.buffer.append(msg.from, msg.trace);
@@ -48,6 +50,17 @@ export class BenchEngine {
       case "error":
         store.set({ error: msg.message });
         break;
+      case "test-progress": {
+        const { type: _t, ...progress } = msg;
+        const prev = store.test;
+        store.set({ test: { kind: msg.test, status: prev?.kind === msg.test && prev.status === "finished" ? "finished" : "running", progress, outcome: prev?.kind === msg.test ? prev.outcome : null } });
+        break;
+      }
+      case "test-outcome": {
+        const { type: _t, ...outcome } = msg;
+        store.set({ test: { kind: msg.test, status: "finished", progress: store.test?.progress ?? null, outcome } });
+        break;
+      }
     }
   }
 
@@ -72,6 +85,18 @@ export class BenchEngine {
   }
   reset() {
     this.send({ type: "reset" });
+  }
+  /** Start a relay test on the loop as it is (the store's test state is replaced). */
+  startRelay(options: RelayTestOptions, speed: "bench" | "max" = "bench") {
+    useBench.getState().set({ test: { kind: "relay", status: "running", progress: null, outcome: null } });
+    this.send({ type: "relay-start", options, speed });
+  }
+  startBump(options: BumpTestOptions, speed: "bench" | "max" = "bench") {
+    useBench.getState().set({ test: { kind: "bump", status: "running", progress: null, outcome: null } });
+    this.send({ type: "bump-start", options, speed });
+  }
+  cancelTest() {
+    this.send({ type: "test-cancel" });
   }
   dispose() {
     this.worker.terminate();

@@ -10,6 +10,7 @@ import type { DrillInput } from "@/sim/drill/schema";
 import type { SampleSnapshot, SimEvent } from "@/sim/drill/simulation";
 import type { StampedAction } from "@/sim/drill/actions";
 import type { BenchSpeed } from "@/sim/worker/protocol";
+import type { BenchTestKind, BenchTestOutcome, BenchTestProgress } from "@/sim/worker/bench-tests";
 import type { TemperatureUnit } from "@/sim/units";
 
 export interface DisplayUnits {
@@ -27,6 +28,15 @@ export interface BenchRunSetup {
   drill: DrillInput;
   controller: ControllerConfig;
   seed: number;
+}
+
+/** The relay or bump test the worker runs (or ran last): its live progress and, at the end, its outcome. */
+export interface BenchTestState {
+  kind: BenchTestKind;
+  /** "running" until the outcome arrives */
+  status: "running" | "finished";
+  progress: BenchTestProgress | null;
+  outcome: BenchTestOutcome | null;
 }
 
 export interface BenchState {
@@ -47,6 +57,8 @@ export interface BenchState {
   controller: ControllerConfig | null;
   /** fingerprint of the worker's trace, on request (for replay checks) */
   fingerprint: { rows: number; value: string } | null;
+  /** the active or last relay/bump test of this run; null after a load */
+  test: BenchTestState | null;
   set: (patch: Partial<BenchState>) => void;
 }
 
@@ -66,5 +78,6 @@ export const useBench = create<BenchState>((set) => ({
   helpOpen: false,
   controller: null,
   fingerprint: null,
+  test: null,
   set: (patch) => set(patch),
 }));

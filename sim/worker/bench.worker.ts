@@ -1,10 +1,13 @@
 /// <reference lib="webworker" />
 /**
  * The Bench's engine worker: runs a BenchSession at the chosen speed and streams trace chunks
- * back about 40 times a second. The main thread never simulates.
+ * back about 40 times a second. The main thread never simulates. While a relay or bump test runs
+ * (BenchTests), the tick advances the test instead of the plain session, at the Bench's speed or
+ * as fast as possible, and posts its progress about ten times a second and its outcome once.
  */
 import { traceFingerprint } from "../drill/trace-hash";
 import { BenchSession } from "./bench-session";
+import { BenchTests } from "./bench-tests";
 import { transferablesOf, type BenchSpeed, type FromWorker, type ToWorker } from "./protocol";
 
 declare const self: DedicatedWorkerGlobalScope;
@@ -19,6 +22,12 @@ let speed: BenchSpeed = 60;
 let owedSamples = 0;
 let lastTick = 0;
 let timer: ReturnType<typeof setInterval> | null = null;
+/** the active relay or bump test (null between loads) */
+let tests: BenchTests | null = null;
+/** the test's pace: the Bench's run speed, or as fast as possible */
+let testSpeed: "bench" | "max" = "bench";
+/** the Bench was running when the test started: it keeps running afterwards, else it pauses */
+let runAfterTest = false;
 
 const post = (msg: FromWorker, transfer: Transferable[] = []) => self.postMessage(msg, transfer);
 
@@ -27,28 +36,66 @@ function flush() {
   if (chunk) post(chunk, transferablesOf(chunk.trace));
 }
 
+/** Post the test's progress (about ten times a second) and, once, its outcome. */
+function reportTest(force = false) {
+  if (!tests) return;
+  const p = tests.takeProgress(force ? Infinity : performance.now());
+  if (p) post({ type: "test-progress", ...p });
+  const o = tests.takeOutcome();
+  if (o) post({ type: "test-outcome", ...o });
+}
+
+/** Advance the test or the plain session by up to `samples`. */
+function stepBy(samples: number) {
+  if (tests?.active) tests.advance(samples);
+  else session?.stepSamples(samples);
+}
+
 function tick() {
   if (!session || !running) return;
   const now = performance.now();
   const wallS = (now - lastTick) / 1000;
   lastTick = now;
-  if (speed === "max") {
-    session.runFor(MAX_BUDGET_MS, () => performance.now());
+  const testing = !!tests?.active;
+  const pace = testing && testSpeed === "max" ? "max" : speed;
+  if (pace === "max") {
+    if (testing) tests!.runFor(MAX_BUDGET_MS, () => performance.now());
+    else session.runFor(MAX_BUDGET_MS, () => performance.now());
   } else {
-    owedSamples += (wallS * speed) / session.sampleTimeS;
+    owedSamples += (wallS * pace) / session.sampleTimeS;
     const due = Math.floor(owedSamples);
     const start = performance.now();
     let done = 0;
     while (done < due && performance.now() - start < MAX_BUDGET_MS) {
       const batch = Math.min(200, due - done);
-      session.stepSamples(batch);
+      stepBy(batch);
       done += batch;
     }
     owedSamples -= done;
     if (owedSamples > 10 * due + 1000) owedSamples = 0; // the worker fell behind: drop the debt rather than lurch
   }
   flush();
-  if (session.finished) setRunning(false);
+  if (testing) {
+    reportTest();
+    if (!tests!.active) {
+      // the test has finished and handed the loop back
+      if (!runAfterTest || session.finished) setRunning(false);
+      return;
+    }
+  }
+  if (!tests?.active && session.finished) setRunning(false);
+}
+
+function startTest(msg: Extract<ToWorker, { type: "relay-start" | "bump-start" }>) {
+  if (!session) return;
+  if (tests?.active) tests.cancel(); // one test at a time: the new one replaces it
+  tests = new BenchTests(session);
+  if (msg.type === "relay-start") tests.startRelay(msg.options);
+  else tests.startBump(msg.options);
+  testSpeed = msg.speed ?? "bench";
+  runAfterTest = running;
+  reportTest(true);
+  if (!running) setRunning(true);
 }
 
 function setRunning(on: boolean) {
@@ -65,6 +112,7 @@ function setRunning(on: boolean) {
 
 function load(msg: Extract<ToWorker, { type: "load" }>) {
   loadMessage = msg;
+  tests = null;
   session = new BenchSession(msg.drill, msg.controller, msg.seed, msg.actions);
   post({ type: "loaded", engineVersion: session.simulation.engineVersion, sampleTimeS: session.sampleTimeS, seed: session.simulation.seed });
   session.stepSamples(1); // the first row, so the faceplate has readings at once
@@ -85,15 +133,33 @@ self.onmessage = (e: MessageEvent<ToWorker>) => {
         break;
       case "run":
         speed = msg.speed;
+        if (tests?.active) runAfterTest = true;
         setRunning(true);
         break;
       case "pause":
+        if (tests?.active) runAfterTest = false;
         setRunning(false);
         break;
       case "step":
         setRunning(false);
-        session?.stepSamples(Math.max(1, Math.floor(msg.samples)));
+        stepBy(Math.max(1, Math.floor(msg.samples)));
         flush();
+        reportTest(true);
+        break;
+      case "relay-start":
+      case "bump-start":
+        startTest(msg);
+        break;
+      case "test-cancel":
+        if (tests?.active) {
+          tests.cancel();
+          if (!running) {
+            // a paused Bench hands the loop back at once
+            tests.advance(4);
+            flush();
+            reportTest(true);
+          }
+        }
         break;
       case "fingerprint": {
         if (!session) break;

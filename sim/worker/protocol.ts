@@ -7,6 +7,9 @@ import type { DrillInput } from "../drill/schema";
 import type { OperatorActionInput, StampedAction } from "../drill/actions";
 import type { SampleSnapshot, SimEvent } from "../drill/simulation";
 import type { Trace } from "../drill/trace";
+import type { BumpTestOptions } from "../tuning/bump/bump-test";
+import type { RelayTestOptions } from "../tuning/relay/relay-test";
+import type { BenchTestOutcome, BenchTestProgress } from "./bench-tests";
 
 /** Simulated seconds per wall second, or as fast as the worker can go. */
 export type BenchSpeed = number | "max";
@@ -18,14 +21,20 @@ export type ToWorker =
   | { type: "step"; samples: number }
   | { type: "act"; action: OperatorActionInput }
   | { type: "reset" }
-  | { type: "fingerprint" };
+  | { type: "fingerprint" }
+  /** start a relay or bump test on the running loop; `speed` "bench" follows the Bench's run speed */
+  | { type: "relay-start"; options: RelayTestOptions; speed?: "bench" | "max" }
+  | { type: "bump-start"; options: BumpTestOptions; speed?: "bench" | "max" }
+  | { type: "test-cancel" };
 
 export type FromWorker =
   | { type: "loaded"; engineVersion: string; sampleTimeS: number; seed: number }
   | { type: "chunk"; from: number; trace: Trace; snapshot: SampleSnapshot; events: SimEvent[]; actions: StampedAction[] }
   | { type: "status"; running: boolean; speed: BenchSpeed }
   | { type: "fingerprint"; rows: number; value: string }
-  | { type: "error"; message: string };
+  | { type: "error"; message: string }
+  | ({ type: "test-progress" } & BenchTestProgress)
+  | ({ type: "test-outcome" } & BenchTestOutcome);
 
 export const TRACE_ARRAY_KEYS = [
   "timeS",
