@@ -259,9 +259,6 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
         <section aria-label="Tuning sets" className="rounded-sm border border-rule bg-paper-raised p-4">
           <TuningSets plantRef={plantRef} current={controller} onLoad={(cfg) => loadTuning(cfg)} />
         </section>
-        <section aria-label="Saved runs" className="rounded-sm border border-rule bg-paper-raised p-4">
-          <RunHistory plantRef={plantRef} currentRun={currentRun ? { title: plantTitle, ...currentRun } : null} onOpen={openSaved} onCompare={compareSaved} />
-        </section>
       </aside>
 
       <div className="min-w-0 space-y-4">
@@ -306,6 +303,9 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           </p>
         ) : null}
         <ResultsTable windows={windows} unit={units.temperature} />
+        <section aria-label="Saved runs" className="rounded-sm border border-rule bg-paper-raised p-4">
+          <RunHistory plantRef={plantRef} currentRun={currentRun ? { title: plantTitle, ...currentRun } : null} onOpen={openSaved} onCompare={compareSaved} />
+        </section>
         {experiments.state.status !== "idle" ? (
           <section aria-label="Experiment results" className="space-y-3 rounded-sm border border-rule bg-paper-raised p-4">
             <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-faint">

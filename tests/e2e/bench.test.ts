@@ -73,7 +73,8 @@ describe("the Bench", () => {
     await page.reload();
     await page.getByTestId("pv-readout").filter({ hasText: /\d/ }).waitFor();
     const row = page.getByRole("row").filter({ hasText: title });
-    await row.getByRole("button", { name: "Open" }).click();
+    await screenshot(page, "saved-run-listed");
+    await row.getByRole("button", { name: "Open" }).click({ timeout: 5000 });
     // the worker replays it to its end at full speed; ask for the fingerprint until it has
     await expect
       .poll(
