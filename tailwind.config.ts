@@ -20,7 +20,7 @@ const config: Config = {
         rule: { DEFAULT: "#d8d5cc", strong: "#b9b5aa" },
         trace: traceColors,
         alarm: { DEFAULT: "#c62828", soft: "#fbe9e7" },
-        caution: { DEFAULT: "#8a6d1d", soft: "#f7f0da" },
+        caution: { DEFAULT: "#735a18", soft: "#f7f0da" }, // 4.5:1 on paper-sunk
         ok: { DEFAULT: "#3d6b4f" },
       },
       fontFamily: {

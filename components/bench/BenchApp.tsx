@@ -303,7 +303,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           </p>
         ) : null}
         <ResultsTable windows={windows} unit={units.temperature} />
-        <section aria-label="Saved runs" className="rounded-sm border border-rule bg-paper-raised p-4">
+        <section aria-label="Saved runs" className="overflow-x-auto rounded-sm border border-rule bg-paper-raised p-4">
           <RunHistory plantRef={plantRef} currentRun={currentRun ? { title: plantTitle, ...currentRun } : null} onOpen={openSaved} onCompare={compareSaved} />
         </section>
         {experiments.state.status !== "idle" ? (
