@@ -27,8 +27,9 @@ import type { SensorChainConfig, SensorFault } from "../sensor/config";
 import { ControllerBlock } from "../control/block";
 import { controllerConfigSchema, type ControllerConfig, type ControllerConfigInput } from "../control/config";
 import { SeededRandom } from "../random/seeded-random";
-import type { Drill } from "./schema";
+import type { Drill, DrillEvent } from "./schema";
 import { expandTimeline, type TimedChange, type TimelineChange } from "./timeline";
+import type { LiveDisturbance } from "./actions";
 import { TraceRecorder, type Trace } from "./trace";
 import type { OperatorAction, StampedAction } from "./actions";
 import { resolveCutout, resolvePlant, resolveSensor } from "./resolve";
@@ -195,12 +196,23 @@ export class Simulation {
     this.events.push({ timeS, sample: this.k, type, detail });
   }
 
+  /** A change applied at once (a live disturbance's start); logged with its action. */
+  private applyDisturbanceChange(c: TimelineChange): string {
+    return this.applyChangeQuietly(c);
+  }
+
   private applyChange(c: TimelineChange, timeS: number, label: string): void {
+    this.log("timeline", label + this.applyChangeQuietly(c), timeS);
+  }
+
+  /** Applies a change; returns a note for the log ("" when there is nothing to add). */
+  private applyChangeQuietly(c: TimelineChange): string {
+    let note = "";
     if (this.plant.kind === "transfer-function") {
       const physical =
         c.kind === "load-in" || c.kind === "load-out" ||
         (c.kind === "conditions" && (c.patch.inletBlockagePercent !== undefined || c.patch.doorAirflowM3PerH !== undefined));
-      if (physical) label += " (no effect on a transfer-function plant)";
+      if (physical) note = " (no effect on a transfer-function plant)";
     }
     switch (c.kind) {
       case "setpoint":
@@ -226,15 +238,14 @@ export class Simulation {
         else this.cutoutFault = c.fault;
         break;
     }
-    this.log("timeline", label, timeS);
+    return note;
   }
 
   private applyChangesUpTo(t: number): void {
     const ch = this.changes;
     while (this.nextChange < ch.length && ch[this.nextChange].timeS <= t + SAME_INSTANT_S) {
       const c = ch[this.nextChange++];
-      const e = this.drill.events[c.eventIndex];
-      this.applyChange(c.change, c.timeS, `${e.type} ${c.phase}`);
+      this.applyChange(c.change, c.timeS, c.label !== undefined ? `${c.label} ${c.phase}` : `${this.drill.events[c.eventIndex].type} ${c.phase}`);
     }
   }
 
@@ -261,6 +272,25 @@ export class Simulation {
         this.controllerCfg = cfg;
         this.controller.retune(cfg);
         this.log("action", "tuning");
+        break;
+      }
+      case "disturbance": {
+        // expanded like a timeline event starting now; its start applies at once, its end (if it
+        // has a duration) joins the pending timeline changes in time order
+        const now = this.k * this.sampleTimeS;
+        let label = `disturbance ${describeDisturbance(a.event)}`;
+        const changes = expandTimeline([{ ...a.event, timeS: now } as DrillEvent], this.plantDefinition, this.sampleTimeS);
+        for (const c of changes) {
+          if (c.timeS <= now + SAME_INSTANT_S) {
+            label += this.applyDisturbanceChange(c.change);
+            continue;
+          }
+          const injected: TimedChange = { ...c, eventIndex: -1, label: `${a.event.type}` };
+          let i = this.nextChange;
+          while (i < this.changes.length && this.changes[i].timeS <= injected.timeS) i++;
+          this.changes.splice(i, 0, injected);
+        }
+        this.log("action", label);
         break;
       }
       case "cutout-reset": {
@@ -338,5 +368,26 @@ export class Simulation {
     r.heaterOn[k] = firstOn;
     r.cutoutTripped[k] = this.cutout.tripped ? 1 : 0;
     this.k = k + 1;
+  }
+}
+
+/** The flag text of a live disturbance, with its size and unit. */
+export function describeDisturbance(e: LiveDisturbance): string {
+  const dur = "durationS" in e && e.durationS !== undefined ? ` for ${e.durationS} s` : "";
+  switch (e.type) {
+    case "inlet-blockage":
+      return `inlet ${e.percent} % blocked${dur}`;
+    case "door-open":
+      return `door open ${e.durationS} s`;
+    case "ambient":
+      return `ambient ${e.temperatureC} °C${dur}`;
+    case "supply-voltage":
+      return `supply ${e.percentOfNominal} % of nominal${dur}`;
+    case "cold-load":
+      return `cold load ${e.massKg} kg at ${e.temperatureC} °C${dur}`;
+    case "sensor-noise":
+      return `sensor noise +${e.extraNoiseSdMa} mA${dur}`;
+    case "sensor-fault":
+      return `${e.target === "cutout" ? "cutout " : ""}sensor ${e.fault}${dur}`;
   }
 }

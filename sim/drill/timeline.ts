@@ -26,6 +26,8 @@ export interface TimedChange {
   /** index of the drill event it comes from, and which end of it */
   eventIndex: number;
   phase: "start" | "end";
+  /** for changes injected live (an operator's disturbance action): the flag's text */
+  label?: string;
 }
 
 /** `sampleTimeS` places the steps of a setpoint ramp on the controller's sample boundaries. */
