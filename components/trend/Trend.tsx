@@ -44,7 +44,7 @@ const FLAG = "#7c848a";
 function flagLabel(e: SimEvent): string {
   if (e.type === "safety-trip") return "CUTOUT TRIP";
   if (e.type === "cutout-reset") return "cutout reset";
-  return e.detail;
+  return e.detail.replace(/^disturbance /, "");
 }
 
 function drawFlags(u: uPlot, events: SimEvent[], withLabels: boolean) {
@@ -53,7 +53,7 @@ function drawFlags(u: uPlot, events: SimEvent[], withLabels: boolean) {
   ctx.save();
   ctx.font = `${10 * devicePixelRatio}px var(--font-plex-sans), sans-serif`;
   for (const e of events) {
-    if (e.type === "action" && !/^(setpoint|mode)/.test(e.detail)) continue;
+    if (e.type === "action" && !/^(setpoint|mode|disturbance)/.test(e.detail)) continue;
     const x = u.valToPos(e.timeS, "x", true);
     if (x < u.bbox.left || x > u.bbox.left + u.bbox.width) continue;
     const alarm = e.type === "safety-trip";
