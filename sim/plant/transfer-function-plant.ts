@@ -86,7 +86,9 @@ export class TransferFunctionPlant implements Plant {
     while (t < end) {
       const next = Math.min(end, this.delay.nextDelayedChangeAfter(t));
       const seg = next - t;
-      if (seg > 1e-12 * Math.max(1, Math.abs(t))) this.exactSegment(seg, this.target(this.delay.delayedAt(t)));
+      // the delayed input is constant on the open segment (t, next); read it at the midpoint, since
+      // at t itself (= a recorded change + θ, rounded) it could still return the previous value
+      if (seg > 1e-12 * Math.max(1, Math.abs(t))) this.exactSegment(seg, this.target(this.delay.delayedAt(t + seg / 2)));
       t = next;
     }
     this.delay.prune(end);
