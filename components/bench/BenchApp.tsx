@@ -37,6 +37,9 @@ import { ExperimentTable } from "./experiments/ExperimentTable";
 import { OverlayChart } from "./experiments/OverlayChart";
 import { TuningMap } from "./experiments/TuningMap";
 import { useExperiments } from "./experiments/use-experiments";
+import { BumpPanel } from "./tests/BumpPanel";
+import { PowerCurvePanel } from "./tests/PowerCurvePanel";
+import { RelayPanel } from "./tests/RelayPanel";
 import type { MapMetric } from "@/sim/experiments/tuning-map";
 
 const DEFAULT_SEED = 20261201;
@@ -358,9 +361,17 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           </div>
           {testsTab === "experiments" ? (
             <ExperimentsPanel baseDrill={drill} controller={controller} seed={run.seed} state={experiments.state} start={experiments.start} cancel={experiments.cancel} />
-          ) : (
-            <p className="text-sm text-ink-soft">Bring the loop near its operating point first (manual, or a settled auto run).</p>
-          )}
+          ) : null}
+          {/* the test panels stay mounted (hidden) so their settings survive a tab change */}
+          <div hidden={testsTab !== "relay"}>
+            <RelayPanel units={units} spanC={spanC} controllerForm={controller.form} onStart={(o, pace) => engine?.startRelay(o, pace)} onCancel={() => engine?.cancelTest()} onApply={loadTuning} />
+          </div>
+          <div hidden={testsTab !== "bump"} className="space-y-4">
+            <BumpPanel units={units} spanC={spanC} controllerForm={controller.form} onStart={(o, pace) => engine?.startBump(o, pace)} onCancel={() => engine?.cancelTest()} onApply={loadTuning} />
+            <div className="border-t border-rule pt-3">
+              <PowerCurvePanel units={units} onRequest={(sp) => engine?.requestPowerCurve(sp)} />
+            </div>
+          </div>
         </section>
         <p className="text-xs text-ink-faint">
           Press <kbd className="num rounded-sm border border-rule-strong px-1">?</kbd> for the keyboard.

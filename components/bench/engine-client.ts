@@ -31,7 +31,7 @@ export class BenchEngine {
     switch (msg.type) {
       case "loaded":
         this.buffer.clear();
-        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, fingerprint: null, status: "paused", test: null });
+        store.set({ engineVersion: msg.engineVersion, sampleTimeS: msg.sampleTimeS, events: [], actionLog: [], snapshot: null, error: null, fingerprint: null, status: "paused", test: null, powerCurve: null });
         break;
       case "chunk":
         this.buffer.append(msg.from, msg.trace);
@@ -50,6 +50,11 @@ export class BenchEngine {
       case "error":
         store.set({ error: msg.message });
         break;
+      case "power-curve": {
+        const { type: _t, ...pc } = msg;
+        store.set({ powerCurve: pc });
+        break;
+      }
       case "test-progress": {
         const { type: _t, ...progress } = msg;
         const prev = store.test;
@@ -97,6 +102,10 @@ export class BenchEngine {
   }
   cancelTest() {
     this.send({ type: "test-cancel" });
+  }
+  /** Ask for the loaded plant's power curve and the OUT that holds `setpointC` (answer in the store). */
+  requestPowerCurve(setpointC: number) {
+    this.send({ type: "power-curve", setpointC });
   }
   dispose() {
     this.worker.terminate();

@@ -9,7 +9,7 @@ import type { ControllerConfig } from "@/sim/control/config";
 import type { DrillInput } from "@/sim/drill/schema";
 import type { SampleSnapshot, SimEvent } from "@/sim/drill/simulation";
 import type { StampedAction } from "@/sim/drill/actions";
-import type { BenchSpeed } from "@/sim/worker/protocol";
+import type { BenchSpeed, FromWorker } from "@/sim/worker/protocol";
 import type { BenchTestKind, BenchTestOutcome, BenchTestProgress } from "@/sim/worker/bench-tests";
 import type { TemperatureUnit } from "@/sim/units";
 
@@ -59,6 +59,8 @@ export interface BenchState {
   fingerprint: { rows: number; value: string } | null;
   /** the active or last relay/bump test of this run; null after a load */
   test: BenchTestState | null;
+  /** the loaded plant's power curve and the OUT for the last SP asked about (from the worker) */
+  powerCurve: Omit<Extract<FromWorker, { type: "power-curve" }>, "type"> | null;
   set: (patch: Partial<BenchState>) => void;
 }
 
@@ -79,5 +81,6 @@ export const useBench = create<BenchState>((set) => ({
   controller: null,
   fingerprint: null,
   test: null,
+  powerCurve: null,
   set: (patch) => set(patch),
 }));

@@ -8,6 +8,7 @@
 import { traceFingerprint } from "../drill/trace-hash";
 import { BenchSession } from "./bench-session";
 import { BenchTests } from "./bench-tests";
+import { heatUpTime, outputForSetpoint, powerCurve, staticGainAt, type PowerCurve } from "../tuning/power-curve";
 import { transferablesOf, type BenchSpeed, type FromWorker, type ToWorker } from "./protocol";
 
 declare const self: DedicatedWorkerGlobalScope;
@@ -28,6 +29,8 @@ let tests: BenchTests | null = null;
 let testSpeed: "bench" | "max" = "bench";
 /** the Bench was running when the test started: it keeps running afterwards, else it pauses */
 let runAfterTest = false;
+/** the loaded plant's power curve, computed on the first request (simulated for a nonlinear plant) */
+let curve: PowerCurve | null = null;
 
 const post = (msg: FromWorker, transfer: Transferable[] = []) => self.postMessage(msg, transfer);
 
@@ -113,6 +116,7 @@ function setRunning(on: boolean) {
 function load(msg: Extract<ToWorker, { type: "load" }>) {
   loadMessage = msg;
   tests = null;
+  curve = null;
   session = new BenchSession(msg.drill, msg.controller, msg.seed, msg.actions);
   post({ type: "loaded", engineVersion: session.simulation.engineVersion, sampleTimeS: session.sampleTimeS, seed: session.simulation.seed });
   session.stepSamples(1); // the first row, so the faceplate has readings at once
@@ -150,6 +154,21 @@ self.onmessage = (e: MessageEvent<ToWorker>) => {
       case "bump-start":
         startTest(msg);
         break;
+      case "power-curve": {
+        if (!session) break;
+        const def = session.simulation.plantDefinition;
+        curve ??= powerCurve(def);
+        const holding = outputForSetpoint(curve, msg.setpointC);
+        post({
+          type: "power-curve",
+          setpointC: msg.setpointC,
+          curve,
+          holding,
+          staticGainCPerPercent: holding.ok ? staticGainAt(curve, holding.outPercent) : null,
+          heatUp: heatUpTime(def, msg.setpointC, curve),
+        });
+        break;
+      }
       case "test-cancel":
         if (tests?.active) {
           tests.cancel();

@@ -8,6 +8,7 @@ import type { OperatorActionInput, StampedAction } from "../drill/actions";
 import type { SampleSnapshot, SimEvent } from "../drill/simulation";
 import type { Trace } from "../drill/trace";
 import type { BumpTestOptions } from "../tuning/bump/bump-test";
+import type { HeatUpEstimate, OutputForSetpoint, PowerCurve } from "../tuning/power-curve";
 import type { RelayTestOptions } from "../tuning/relay/relay-test";
 import type { BenchTestOutcome, BenchTestProgress } from "./bench-tests";
 
@@ -25,7 +26,9 @@ export type ToWorker =
   /** start a relay or bump test on the running loop; `speed` "bench" follows the Bench's run speed */
   | { type: "relay-start"; options: RelayTestOptions; speed?: "bench" | "max" }
   | { type: "bump-start"; options: BumpTestOptions; speed?: "bench" | "max" }
-  | { type: "test-cancel" };
+  | { type: "test-cancel" }
+  /** the power curve of the loaded plant, with the OUT that holds `setpointC` and heat-up times */
+  | { type: "power-curve"; setpointC: number };
 
 export type FromWorker =
   | { type: "loaded"; engineVersion: string; sampleTimeS: number; seed: number }
@@ -33,6 +36,7 @@ export type FromWorker =
   | { type: "status"; running: boolean; speed: BenchSpeed }
   | { type: "fingerprint"; rows: number; value: string }
   | { type: "error"; message: string }
+  | { type: "power-curve"; setpointC: number; curve: PowerCurve; holding: OutputForSetpoint; staticGainCPerPercent: number | null; heatUp: HeatUpEstimate }
   | ({ type: "test-progress" } & BenchTestProgress)
   | ({ type: "test-outcome" } & BenchTestOutcome);
 

@@ -1,0 +1,204 @@
+"use client";
+/**
+ * Bump test on the Bench's loop (sim/tuning/bump/bump-test.ts, run by the worker): held in
+ * manual at the present OUT, a steady stretch logged, OUT stepped, the response logged and
+ * identified (FOPDT and SOPDT by output error). Shows the record with both fitted responses, the
+ * fit quality, the identification's warnings and the proposed tunings with Apply.
+ */
+import { useMemo, useState } from "react";
+import type { ControllerConfig } from "@/sim/control/config";
+import type { BumpOutcome, BumpTestOptions } from "@/sim/tuning/bump/bump-test";
+import type { BlockForm } from "@/sim/tuning/rules/form-conversion";
+import type { ControllerType } from "@/sim/tuning/rules/tuning";
+import { temperatureDeltaToDisplay } from "@/sim/units";
+import { Duration, Qty } from "../plants/format";
+import { useBench, type DisplayUnits } from "../store";
+import { BumpChart } from "./BumpChart";
+import { ProposalView } from "./ProposalView";
+
+export interface BumpPanelProps {
+  units: DisplayUnits;
+  spanC: number;
+  controllerForm: BlockForm;
+  onStart: (options: BumpTestOptions, speed: "bench" | "max") => void;
+  onCancel: () => void;
+  onApply: (cfg: ControllerConfig) => void;
+}
+
+const PHASES: Record<string, string> = {
+  "pre-step": "logging the steady stretch before the step",
+  response: "OUT stepped: logging the response",
+  returning: "handing the loop back",
+  done: "done",
+};
+
+export function BumpPanel({ units, spanC, controllerForm, onStart, onCancel, onApply }: BumpPanelProps) {
+  const test = useBench((s) => s.test);
+  const [step, setStep] = useState("10");
+  const [pace, setPace] = useState<"bench" | "max">("bench");
+  const [error, setError] = useState<string | null>(null);
+  const bump = test?.kind === "bump" ? test : null;
+  const running = test?.status === "running";
+  const otherRunning = running && test?.kind !== "bump";
+  const progress = bump?.progress?.test === "bump" ? bump.progress.progress : null;
+  const result = bump?.outcome?.test === "bump" ? bump.outcome : null;
+
+  const start = (e: React.FormEvent) => {
+    e.preventDefault();
+    const s = Number(step.trim().replace(",", "."));
+    if (!Number.isFinite(s) || Math.abs(s) < 1 || Math.abs(s) > 50) return setError("Step size: a number of % between 1 and 50 (negative steps down).");
+    setError(null);
+    onStart({ stepPercent: s, controller: "PID", form: controllerForm }, pace);
+  };
+
+  const select = "rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-xs";
+  return (
+    <div className="space-y-3 text-sm" data-testid="bump-panel">
+      <form onSubmit={start} aria-label="Bump test settings" className="space-y-1.5 text-xs" noValidate>
+        <div className="flex items-center justify-between gap-2">
+          <label htmlFor="bt-step" className="text-ink-soft">
+            OUT step
+          </label>
+          <span className="flex items-center gap-1">
+            <input id="bt-step" inputMode="decimal" value={step} onChange={(e) => setStep(e.target.value)} className="num w-16 rounded-sm border border-rule-strong bg-paper px-1.5 py-0.5 text-right text-xs" />
+            <span className="num w-8 text-ink-faint">%</span>
+          </span>
+        </div>
+        <div className="flex items-center justify-between gap-2">
+          <label htmlFor="bt-pace" className="text-ink-soft">
+            Run the test
+          </label>
+          <select id="bt-pace" value={pace} onChange={(e) => setPace(e.target.value as typeof pace)} className={select}>
+            <option value="bench">at the Bench speed</option>
+            <option value="max">as fast as possible</option>
+          </select>
+        </div>
+        <p className="text-[11px] text-ink-faint">From steady state: the loop is held in manual at its present OUT, a minute is logged, OUT steps and the response is logged for about six time constants; then the loop is handed back.</p>
+        {error ? (
+          <p role="alert" className="text-alarm">
+            {error}
+          </p>
+        ) : null}
+        {running && bump ? (
+          <button type="button" onClick={onCancel} className="w-full rounded-sm border border-rule-strong px-3 py-1.5 text-sm hover:border-ink">
+            Cancel the bump test
+          </button>
+        ) : (
+          <button type="submit" disabled={otherRunning} className="w-full rounded-sm bg-ink px-3 py-1.5 text-sm font-semibold text-paper hover:bg-ink-soft disabled:opacity-50">
+            Start bump test
+          </button>
+        )}
+        {otherRunning ? <p className="text-ink-faint">A relay test is running; cancel it or wait for it to finish.</p> : null}
+      </form>
+
+      {bump && progress && running ? (
+        <div className="rounded-sm border border-rule px-2 py-1.5 text-xs" data-testid="bump-progress" aria-live="polite">
+          <p className="mb-1 font-semibold">{PHASES[progress.phase] ?? progress.phase}</p>
+          <div className="h-1.5 w-full rounded-sm bg-paper-sunk" role="progressbar" aria-label="Bump test progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(progress.fraction * 100)}>
+            <div className="h-1.5 rounded-sm bg-ink-soft" style={{ width: `${(progress.fraction * 100).toFixed(1)}%` }} />
+          </div>
+          <p className="num mt-1 text-ink-faint">
+            {(progress.fraction * 100).toFixed(0)} % · {progress.rows} rows logged
+          </p>
+        </div>
+      ) : null}
+
+      {result && !result.outcome.ok ? (
+        <div role="status" className="rounded-sm border border-caution/50 bg-caution-soft px-2 py-1.5 text-xs text-caution" data-testid="bump-refusal">
+          {"cancelled" in result.outcome ? <p>{result.outcome.message}</p> : <p>No model from this record: {result.outcome.refusal.message}</p>}
+        </div>
+      ) : null}
+
+      {result && result.outcome.ok ? <BumpResultView outcome={result.outcome} base={result.base} units={units} spanC={spanC} onApply={onApply} initial={{ controller: "PID", form: controllerForm }} /> : null}
+      {!bump ? <p className="text-xs text-ink-soft">Settle the loop first: a bump test identifies the process from a step out of steady state.</p> : null}
+    </div>
+  );
+}
+
+type OkOutcome = Extract<BumpOutcome, { ok: true }>;
+
+function BumpResultView({ outcome: o, base, units, spanC, onApply, initial }: { outcome: OkOutcome; base: ControllerConfig; units: DisplayUnits; spanC: number; onApply: (cfg: ControllerConfig) => void; initial: { rule?: string; controller: ControllerType; form: BlockForm } }) {
+  const id = o.identification;
+  const [which, setWhich] = useState<"fopdt" | "sopdt">(id.preferred);
+  const model = which === "sopdt" && id.sopdt ? id.sopdt.model : id.fopdt.model;
+  const T = `°${units.temperature}`;
+  const dT = (c: number) => temperatureDeltaToDisplay(c, units.temperature);
+  const extraLags = useMemo(() => ({}), []);
+  const csv = () => {
+    const rows = ["t_s,out_pct,pv_c,fopdt_c,sopdt_c", ...o.record.t.map((t, i) => [t, o.record.out[i], o.record.pv[i], id.fopdt.predicted[i], id.sopdt?.predicted[i] ?? ""].join(","))];
+    const url = URL.createObjectURL(new Blob([rows.join("\n") + "\n"], { type: "text/csv" }));
+    const a = document.createElement("a");
+    a.href = url;
+    a.download = "loopwright-bump-test.csv";
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(url), 1000);
+  };
+  return (
+    <div className="space-y-3" data-testid="bump-result">
+      <BumpChart t={o.record.t} out={o.record.out} pv={o.record.pv} fopdt={id.fopdt.predicted} sopdt={id.sopdt?.predicted ?? null} stepTimeS={id.step.timeS} unit={units.temperature} />
+      <p className="-mt-2 text-right text-[11px]">
+        <button type="button" onClick={csv} className="underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+          Export the record (CSV)
+        </button>
+      </p>
+      <table className="w-full text-xs" data-testid="bump-fit">
+        <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-faint">Fitted models · step {o.stepPercent > 0 ? "+" : ""}{o.stepPercent} %</caption>
+        <thead>
+          <tr className="text-left text-ink-faint">
+            <th className="font-normal">model</th>
+            <th className="text-right font-normal">K</th>
+            <th className="text-right font-normal">τ</th>
+            <th className="text-right font-normal">θ</th>
+            <th className="text-right font-normal">R²</th>
+            <th className="text-right font-normal">NRMSE</th>
+          </tr>
+        </thead>
+        <tbody className="num">
+          <tr>
+            <td className="font-sans">FOPDT{id.preferred === "fopdt" ? " ·" : ""}</td>
+            <td className="text-right">{dT(id.fopdt.model.gainCPerPercent).toPrecision(3)} {T}/%</td>
+            <td className="text-right">{id.fopdt.model.timeConstantS.toFixed(0)} s</td>
+            <td className="text-right">{id.fopdt.model.deadTimeS.toFixed(1)} s</td>
+            <td className="text-right" data-testid="bump-r2">{id.fopdt.quality.r2.toFixed(4)}</td>
+            <td className="text-right">{(id.fopdt.quality.nrmse * 100).toFixed(2)} %</td>
+          </tr>
+          {id.sopdt ? (
+            <tr>
+              <td className="font-sans">SOPDT{id.preferred === "sopdt" ? " ·" : ""}</td>
+              <td className="text-right">{dT(id.sopdt.model.gainCPerPercent).toPrecision(3)} {T}/%</td>
+              <td className="text-right">
+                {id.sopdt.model.timeConstant1S.toFixed(0)}, {id.sopdt.model.timeConstant2S.toFixed(0)} s
+              </td>
+              <td className="text-right">{id.sopdt.model.deadTimeS.toFixed(1)} s</td>
+              <td className="text-right">{id.sopdt.quality.r2.toFixed(4)}</td>
+              <td className="text-right">{(id.sopdt.quality.nrmse * 100).toFixed(2)} %</td>
+            </tr>
+          ) : null}
+        </tbody>
+      </table>
+      <p className="text-[11px] text-ink-faint">
+        · preferred ({id.preferred === "sopdt" ? "SOPDT lowers the squared error by more than 20 %" : "SOPDT does not improve on FOPDT by more than 20 %"}). PV noise σ <Qty value={dT(id.noiseSigmaC)} unit={T} />, residual σ <Qty value={dT(id.residualSigmaC)} unit={T} />, {id.samples.count} rows,
+        median interval <Duration seconds={id.samples.medianIntervalS} />.
+      </p>
+      {id.warnings.length ? (
+        <ul className="list-disc space-y-0.5 pl-4 text-xs text-caution" data-testid="bump-warnings">
+          {id.warnings.map((w) => (
+            <li key={w.code}>{w.message}</li>
+          ))}
+        </ul>
+      ) : null}
+      {id.sopdt ? (
+        <div className="flex items-center justify-between gap-2 text-xs">
+          <label htmlFor="bt-model" className="text-ink-soft">
+            Tune from
+          </label>
+          <select id="bt-model" value={which} onChange={(e) => setWhich(e.target.value as typeof which)} className="rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-xs">
+            <option value="fopdt">FOPDT model</option>
+            <option value="sopdt">SOPDT model</option>
+          </select>
+        </div>
+      ) : null}
+      <ProposalView key={which} idPrefix="bump" model={model} base={base} initial={initial} sampleTimeAndFilter={o.sampleTimeAndFilter} extraLags={extraLags} units={units} spanC={spanC} onApply={onApply} />
+    </div>
+  );
+}
