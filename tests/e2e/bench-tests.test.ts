@@ -64,4 +64,22 @@ describe("the Bench's relay test", () => {
     expect(Number(await form.getByLabel("PV filter τf").inputValue())).toBe(1);
     await screenshot(page, "bench-relay-applied");
   });
+
+  it("a bump test from the settled loop shows the record with both fits, their quality and a proposal; the power curve gives the OUT for SP", async () => {
+    await page.getByRole("tab", { name: "Bump test" }).click();
+    const panel = page.getByTestId("bump-panel");
+    await panel.getByLabel("Run the test").selectOption("max");
+    await panel.getByRole("button", { name: "Start bump test" }).click();
+    await panel.getByTestId("bump-result").waitFor({ timeout: 60_000 });
+    await panel.getByTestId("bump-chart").locator("canvas").first().waitFor();
+    expect(Number(await panel.getByTestId("bump-r2").textContent())).toBeGreaterThan(0.95);
+    expect(await panel.getByTestId("bump-fit").textContent()).toMatch(/FOPDT.*SOPDT/s);
+    expect(await panel.getByTestId("bump-tuning").textContent()).toMatch(/Gain Kc/);
+    const curve = page.getByTestId("power-curve");
+    await curve.getByTestId("power-curve-holding").filter({ hasText: /\d/ }).waitFor();
+    expect(await curve.getByTestId("power-curve-method").textContent()).toMatch(/Analytic: the plant is linear/);
+    // the cabinet holds 60 °C at about a quarter of its heater (the plant's derived figures)
+    expect(Number((await curve.getByTestId("power-curve-holding").textContent())!.split(/\s/)[0])).toBeGreaterThan(20);
+    await screenshot(page, "bench-bump-test");
+  });
 });

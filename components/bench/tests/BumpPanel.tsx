@@ -141,43 +141,37 @@ function BumpResultView({ outcome: o, base, units, spanC, onApply, initial }: { 
           Export the record (CSV)
         </button>
       </p>
-      <table className="w-full text-xs" data-testid="bump-fit">
-        <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-faint">Fitted models · step {o.stepPercent > 0 ? "+" : ""}{o.stepPercent} %</caption>
-        <thead>
-          <tr className="text-left text-ink-faint">
-            <th className="font-normal">model</th>
-            <th className="text-right font-normal">K</th>
-            <th className="text-right font-normal">τ</th>
-            <th className="text-right font-normal">θ</th>
-            <th className="text-right font-normal">R²</th>
-            <th className="text-right font-normal">NRMSE</th>
-          </tr>
-        </thead>
-        <tbody className="num">
-          <tr>
-            <td className="font-sans">FOPDT{id.preferred === "fopdt" ? " ·" : ""}</td>
-            <td className="text-right">{dT(id.fopdt.model.gainCPerPercent).toPrecision(3)} {T}/%</td>
-            <td className="text-right">{id.fopdt.model.timeConstantS.toFixed(0)} s</td>
-            <td className="text-right">{id.fopdt.model.deadTimeS.toFixed(1)} s</td>
-            <td className="text-right" data-testid="bump-r2">{id.fopdt.quality.r2.toFixed(4)}</td>
-            <td className="text-right">{(id.fopdt.quality.nrmse * 100).toFixed(2)} %</td>
-          </tr>
-          {id.sopdt ? (
-            <tr>
-              <td className="font-sans">SOPDT{id.preferred === "sopdt" ? " ·" : ""}</td>
-              <td className="text-right">{dT(id.sopdt.model.gainCPerPercent).toPrecision(3)} {T}/%</td>
-              <td className="text-right">
-                {id.sopdt.model.timeConstant1S.toFixed(0)}, {id.sopdt.model.timeConstant2S.toFixed(0)} s
-              </td>
-              <td className="text-right">{id.sopdt.model.deadTimeS.toFixed(1)} s</td>
-              <td className="text-right">{id.sopdt.quality.r2.toFixed(4)}</td>
-              <td className="text-right">{(id.sopdt.quality.nrmse * 100).toFixed(2)} %</td>
-            </tr>
-          ) : null}
-        </tbody>
-      </table>
+      <div className="text-xs" data-testid="bump-fit">
+        <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-faint">
+          Fitted models · step {o.stepPercent > 0 ? "+" : ""}
+          {o.stepPercent} %
+        </h3>
+        <ModelFit
+          name="FOPDT"
+          preferred={id.preferred === "fopdt"}
+          gain={dT(id.fopdt.model.gainCPerPercent)}
+          unit={T}
+          taus={[id.fopdt.model.timeConstantS]}
+          theta={id.fopdt.model.deadTimeS}
+          r2={id.fopdt.quality.r2}
+          nrmse={id.fopdt.quality.nrmse}
+          testId="bump-r2"
+        />
+        {id.sopdt ? (
+          <ModelFit
+            name="SOPDT"
+            preferred={id.preferred === "sopdt"}
+            gain={dT(id.sopdt.model.gainCPerPercent)}
+            unit={T}
+            taus={[id.sopdt.model.timeConstant1S, id.sopdt.model.timeConstant2S]}
+            theta={id.sopdt.model.deadTimeS}
+            r2={id.sopdt.quality.r2}
+            nrmse={id.sopdt.quality.nrmse}
+          />
+        ) : null}
+      </div>
       <p className="text-[11px] text-ink-faint">
-        · preferred ({id.preferred === "sopdt" ? "SOPDT lowers the squared error by more than 20 %" : "SOPDT does not improve on FOPDT by more than 20 %"}). PV noise σ <Qty value={dT(id.noiseSigmaC)} unit={T} />, residual σ <Qty value={dT(id.residualSigmaC)} unit={T} />, {id.samples.count} rows,
+        Preferred: {id.preferred === "sopdt" ? "SOPDT (it lowers the squared error by more than 20 %)" : "FOPDT (SOPDT does not lower the squared error by more than 20 %)"}. PV noise σ <Qty value={dT(id.noiseSigmaC)} unit={T} />, residual σ <Qty value={dT(id.residualSigmaC)} unit={T} />, {id.samples.count} rows,
         median interval <Duration seconds={id.samples.medianIntervalS} />.
       </p>
       {id.warnings.length ? (
@@ -199,6 +193,33 @@ function BumpResultView({ outcome: o, base, units, spanC, onApply, initial }: { 
         </div>
       ) : null}
       <ProposalView key={which} idPrefix="bump" model={model} base={base} initial={initial} sampleTimeAndFilter={o.sampleTimeAndFilter} extraLags={extraLags} units={units} spanC={spanC} onApply={onApply} />
+    </div>
+  );
+}
+
+function ModelFit({ name, preferred, gain, unit, taus, theta, r2, nrmse, testId }: { name: string; preferred: boolean; gain: number; unit: string; taus: number[]; theta: number; r2: number; nrmse: number; testId?: string }) {
+  return (
+    <div className="mb-1.5 border-l-2 pl-2" style={{ borderColor: preferred ? "var(--color-ink, #1f2326)" : "transparent" }}>
+      <p className="font-semibold">
+        {name}
+        {preferred ? <span className="font-normal text-ink-faint"> · preferred</span> : null}
+      </p>
+      <dl className="grid grid-cols-[1fr_auto] gap-y-0.5">
+        <dt className="text-ink-soft">Gain K</dt>
+        <dd>
+          <Qty value={gain} unit={`${unit}/%`} />
+        </dd>
+        <dt className="text-ink-soft">{taus.length > 1 ? "Time constants τ1, τ2" : "Time constant τ"}</dt>
+        <dd className="num">{taus.map((t) => t.toFixed(t < 10 ? 1 : 0)).join(", ")} s</dd>
+        <dt className="text-ink-soft">Dead time θ</dt>
+        <dd>
+          <Qty value={theta} unit="s" digits={1} />
+        </dd>
+        <dt className="text-ink-soft">Fit R² · NRMSE</dt>
+        <dd className="num">
+          <span data-testid={testId}>{r2.toFixed(4)}</span> · {(nrmse * 100).toFixed(2)} %
+        </dd>
+      </dl>
     </div>
   );
 }

@@ -54,9 +54,9 @@ export function PowerCurvePanel({ units, onRequest }: PowerCurvePanelProps) {
                 </dd>
               </>
             ) : null}
-            <dt className="text-ink-soft">Heat-up from ambient at 100 %</dt>
+            <dt className="text-ink-soft">Heat-up from ambient, OUT 100 %</dt>
             <dd>{pc.heatUp.atFullOutputS === null ? "never reaches SP" : <Duration seconds={pc.heatUp.atFullOutputS} />}</dd>
-            <dt className="text-ink-soft">…at the holding OUT (95 % of the rise)</dt>
+            <dt className="text-ink-soft">…at the holding OUT, to 95 %</dt>
             <dd>{pc.heatUp.atHoldingOutputS === null ? "—" : <Duration seconds={pc.heatUp.atHoldingOutputS} />}</dd>
           </dl>
           {!pc.holding.ok ? <p className="text-caution">{pc.holding.reason}</p> : null}
@@ -83,7 +83,7 @@ function PowerCurveChart({ points, setpointC, holdingOut, unit }: { points: { ou
         scales: { x: { time: false, range: [0, 100] } },
         axes: [
           { font: "10px var(--font-plex-mono)", grid: { stroke: "#e3e0d8" }, values: (_u, v) => v.map((x) => `${x} %`) },
-          { font: "10px var(--font-plex-mono)", grid: { stroke: "#e3e0d8" }, size: 44 },
+          { font: "10px var(--font-plex-mono)", grid: { stroke: "#e3e0d8" }, size: 40, space: 20, label: T, labelSize: 14, labelFont: "10px var(--font-plex-sans)" },
         ],
         series: [
           { label: "OUT", value: (_u, v) => (v == null ? "—" : `${v.toFixed(1)} %`) },

@@ -134,7 +134,7 @@ export function ProposalView({ ultimate, model, base, initial, sampleTimeAndFilt
                   <dd className="num">{cfg.td === 0 ? "off" : `${shown.td} ${unitLabel("td", units)}`}</dd>
                 </>
               )}
-              {rec.conversion.tuning.pvFilterTauS !== undefined ? (
+              {rec.conversion.tuning.pvFilterTauS ? (
                 <>
                   <dt className="text-ink-soft">PV filter τf (from the rule)</dt>
                   <dd>
