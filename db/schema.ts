@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import {
   bigint,
   boolean,
+  check,
   doublePrecision,
   index,
   integer,
@@ -242,3 +243,61 @@ export const savedRuns = pgTable(
 export type PlantRow = typeof plants.$inferSelect;
 export type TuningSetRow = typeof tuningSets.$inferSelect;
 export type SavedRunRow = typeof savedRuns.$inferSelect;
+
+// ---- Drills (migration 0002_drill_builder) ----
+// A drill is an instructor's scenario; its content lives in numbered versions. A version is a
+// draft (at most one per drill, edited in place by its owner) or published (frozen: the
+// application never updates it, and a trigger of migration 0002 refuses any UPDATE or DELETE of a
+// published row). Editing a published drill starts a new draft version N+1. Attempts (later
+// work) reference a drill_versions row, so standings compare runs of the same document.
+
+export const drillVersionStatus = pgEnum("drill_version_status", ["draft", "published"]);
+
+export const drills = pgTable(
+  "drills",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: uuid("organization_id")
+      .notNull()
+      .references(() => organizations.id),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => users.id),
+    /** the latest version's title, kept here for lists */
+    title: text("title").notNull(),
+    /** readable and duplicable by the organisation's instructors; only the owner edits */
+    sharedWithOrg: boolean("shared_with_org").notNull().default(false),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
+    archivedAt: timestamp("archived_at", { withTimezone: true, mode: "date" }),
+  },
+  (t) => [index("drills_owner_idx").on(t.ownerId), index("drills_org_shared_idx").on(t.organizationId, t.sharedWithOrg)],
+);
+
+export const drillVersions = pgTable(
+  "drill_versions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    drillId: uuid("drill_id")
+      .notNull()
+      .references(() => drills.id),
+    version: integer("version").notNull(),
+    status: drillVersionStatus("status").notNull().default("draft"),
+    /** a drill document (sim/drill/schema.ts, parsed output) whose id is the drill's and revision this version */
+    document: jsonb("document").$type<Record<string, unknown>>().notNull(),
+    publishedAt: timestamp("published_at", { withTimezone: true, mode: "date" }),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("drill_versions_drill_version_unique").on(t.drillId, t.version),
+    uniqueIndex("drill_versions_one_draft").on(t.drillId).where(sql`${t.status} = 'draft'`),
+    check("drill_versions_version_positive", sql`${t.version} >= 1`),
+    check("drill_versions_published_at", sql`(${t.status} = 'published') = (${t.publishedAt} is not null)`),
+  ],
+);
+
+export type DrillRow = typeof drills.$inferSelect;
+export type DrillVersionRow = typeof drillVersions.$inferSelect;
