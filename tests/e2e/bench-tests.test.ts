@@ -3,6 +3,7 @@
 // anyway, noise fools the relay and the test stops with that reason; with a PV filter of a quarter
 // of the sensor lag (1 s on the 4 s element; references §16, common practice) the same test
 // completes, and its proposal loads into the controller after confirmation.
+import { createRequire } from "node:module";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { demoPeople } from "@/db/seed";
@@ -23,6 +24,18 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
+
+/** axe-core's serious and critical findings on the page as it is (WCAG 2.1 A/AA rules as axe implements them). */
+async function seriousAxeFindings() {
+  const require = createRequire(import.meta.url);
+  await page.addScriptTag({ path: require.resolve("axe-core/axe.min.js") });
+  const result = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+    const r = await axe.run(document, { resultTypes: ["violations"] });
+    return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
+  });
+  return result.filter((v) => v.impact === "serious" || v.impact === "critical");
+}
 
 describe("the Bench's relay test", () => {
   it("on the noisy preset: warning, noise abort, PV filter, completed test, proposal applied", async () => {
@@ -63,6 +76,8 @@ describe("the Bench's relay test", () => {
     await expect.poll(async () => Number(await form.getByLabel("Gain Kc").inputValue())).toBe(kc);
     expect(Number(await form.getByLabel("PV filter τf").inputValue())).toBe(1);
     await screenshot(page, "bench-relay-applied");
+    const findings = await seriousAxeFindings();
+    expect(findings, JSON.stringify(findings, null, 2)).toEqual([]);
   });
 
   it("a bump test from the settled loop shows the record with both fits, their quality and a proposal; the power curve gives the OUT for SP", async () => {
@@ -81,5 +96,7 @@ describe("the Bench's relay test", () => {
     // the cabinet holds 60 °C at about a quarter of its heater (the plant's derived figures)
     expect(Number((await curve.getByTestId("power-curve-holding").textContent())!.split(/\s/)[0])).toBeGreaterThan(20);
     await screenshot(page, "bench-bump-test");
+    const findings = await seriousAxeFindings();
+    expect(findings, JSON.stringify(findings, null, 2)).toEqual([]);
   });
 });
