@@ -38,6 +38,8 @@ export type TestSpeed = number | "max";
 
 const PROGRESS_EVERY_MS = 100; // about ten progress messages a second
 
+const RUN_ENDED = (test: string) => `the Bench run reached its end before the ${test} test finished; the loop is handed back. Reset the run and start the test earlier`;
+
 export class BenchTests {
   private relay: RelayTest | null = null;
   private bump: BumpTest | null = null;
@@ -47,6 +49,8 @@ export class BenchTests {
   private lastProgressMs = -Infinity;
   private lastPhase = "";
   private outcomeTaken = false;
+  /** the relay test was cut short by the end of the Bench run, not by the operator */
+  private runEnded = false;
 
   constructor(readonly session: BenchSession) {}
 
@@ -84,6 +88,7 @@ export class BenchTests {
     this.lastProgressMs = -Infinity;
     this.lastPhase = "";
     this.outcomeTaken = false;
+    this.runEnded = false;
   }
 
   /** Abandon the active test; the loop is handed back over the next sample or two. */
@@ -122,13 +127,15 @@ export class BenchTests {
     const sim = this.session.simulation;
     // the Bench run reached its end: a test cannot go on past it
     if (sim.finished) {
-      if (this.relay) this.relay.cancel(); // no-op once it is handing back
-      else if (this.bump && this.bump.phase !== "returning") this.cancel("the Bench run reached its end before the bump test finished; reset the run and test earlier");
+      if (this.relay) {
+        if (this.relay.phase !== "returning") this.runEnded = true;
+        this.relay.cancel(); // no-op once it is handing back
+      } else if (this.bump && this.bump.phase !== "returning") this.cancel(RUN_ENDED("bump"));
     }
     if (this.relay) {
       this.relay.step();
       const o = this.relay.outcome;
-      if (o) this.finalOutcome = { test: "relay", outcome: o, base: this.base! };
+      if (o) this.finalOutcome = { test: "relay", outcome: this.runEnded && !o.ok && o.code === "cancelled" ? { ...o, message: RUN_ENDED("relay") } : o, base: this.base! };
       return;
     }
     const bump = this.bump!;

@@ -157,4 +157,18 @@ describe("BenchTests: stepping, budget, progress pace, cancel", () => {
     expect(o.outcome.identification.fopdt.quality.r2).toBeGreaterThan(0.95);
     expect(s.simulation.controllerState.mode).toBe("auto");
   });
+
+  it("a test still running when the Bench run reaches its end is handed back and says why", () => {
+    const s = bench(1);
+    const sim = s.simulation;
+    s.stepSamples(sim.lastSample - sim.sampleIndex - 50); // 25 s before the end of the run
+    const t = new BenchTests(s);
+    t.startRelay({ hysteresisC: 0.5 });
+    runToEnd(t);
+    const o = t.outcome;
+    if (o?.test !== "relay" || o.outcome.ok) throw new Error("expected an abort");
+    expect(o.outcome.code).toBe("cancelled");
+    expect(o.outcome.message).toMatch(/the Bench run reached its end before the relay test finished/);
+    expect(sim.controllerState.mode).toBe("auto");
+  });
 });
