@@ -190,8 +190,10 @@ self.onmessage = (e: MessageEvent<ToWorker>) => {
         session?.act(msg.action);
         if (!running) {
           // a paused Bench applies the action on the next sample so the operator sees it land
-          session?.stepSamples(1);
+          // (through the test while one is active, so it sees every sample)
+          stepBy(1);
           flush();
+          reportTest(true);
         }
         break;
     }
