@@ -52,6 +52,10 @@ function drawFlags(u: uPlot, events: SimEvent[], withLabels: boolean) {
   const { top, height } = u.bbox;
   ctx.save();
   ctx.font = `${10 * devicePixelRatio}px var(--font-plex-sans), sans-serif`;
+  // labels closer than their width stack downwards instead of overprinting
+  let lastX = -Infinity;
+  let lastEnd = -Infinity;
+  let row = 0;
   for (const e of events) {
     if (e.type === "action" && !/^(setpoint|mode|disturbance)/.test(e.detail)) continue;
     const x = u.valToPos(e.timeS, "x", true);
@@ -65,8 +69,12 @@ function drawFlags(u: uPlot, events: SimEvent[], withLabels: boolean) {
     ctx.lineTo(x, top + height);
     ctx.stroke();
     if (withLabels) {
+      const text = `▸ ${flagLabel(e)}`;
+      row = x < lastEnd && x - lastX < 400 * devicePixelRatio ? (row + 1) % 4 : 0;
       ctx.fillStyle = alarm ? "#c62828" : INK;
-      ctx.fillText(`▸ ${flagLabel(e)}`, x + 3 * devicePixelRatio, top + 11 * devicePixelRatio);
+      ctx.fillText(text, x + 3 * devicePixelRatio, top + (11 + 12 * row) * devicePixelRatio);
+      lastX = x;
+      lastEnd = Math.max(row === 0 ? -Infinity : lastEnd, x + ctx.measureText(text).width + 6 * devicePixelRatio);
     }
   }
   ctx.restore();
