@@ -8,6 +8,7 @@ import { BENCH_START_TUNING, benchDrill } from "@/components/bench/bench-drill";
 import { findPreset } from "@/sim/plant/presets";
 import { BenchSession } from "@/sim/worker/bench-session";
 import { BenchTests } from "@/sim/worker/bench-tests";
+import { traceFingerprint } from "@/sim/drill/trace-hash";
 
 const PRESET = "relay-practice-noisy-cabinet";
 const SEED = 20261201;
@@ -170,5 +171,19 @@ describe("BenchTests: stepping, budget, progress pace, cancel", () => {
     expect(o.outcome.code).toBe("cancelled");
     expect(o.outcome.message).toMatch(/the Bench run reached its end before the relay test finished/);
     expect(sim.controllerState.mode).toBe("auto");
+  });
+
+  it("a run with a relay test replays from its drill, seed and action log to the same trace (a saved run reopens with the test in it)", () => {
+    const s = bench(1);
+    const t = new BenchTests(s);
+    t.startRelay({ hysteresisC: 0.5 });
+    runToEnd(t);
+    s.stepSamples(100);
+    const sim = s.simulation;
+    const drill = benchDrill({ plant: { kind: "preset", presetId: PRESET }, title: "noisy", setpointC: 60, reference: BENCH_START_TUNING, seed: SEED });
+    const replay = new BenchSession(drill, { ...BENCH_START_TUNING, pvFilterTauS: 1 }, SEED, sim.actionLog);
+    replay.stepSamples(sim.sampleIndex);
+    expect(sim.actionLog.length).toBeGreaterThan(3); // manual, kick, on/off tuning, auto, hand-back
+    expect(traceFingerprint(replay.simulation.trace())).toBe(traceFingerprint(sim.trace()));
   });
 });
