@@ -43,6 +43,14 @@ export const who = {
   foreignCohortStaff: ["foreignAdmin", "foreignInstructor"],
   /** the owner of the Bench fixtures */
   owner: ["trainee"],
+  /** drill builders: instructors and admins, of either organisation */
+  builders: ["admin", "instructor", "otherInstructor", "foreignAdmin", "foreignInstructor"],
+  /** the owner of the drill fixtures */
+  drillOwner: ["instructor"],
+  /** who views a private drill of cohort A's instructor: the owner and the organisation's admins */
+  privateDrillViewers: ["admin", "instructor"],
+  /** who views a shared drill: also the organisation's other instructors */
+  sharedDrillViewers: ["admin", "instructor", "otherInstructor"],
   nobody: [],
 } satisfies Record<string, readonly Actor[]>;
 
@@ -68,6 +76,10 @@ export interface FreshIds {
   resetToken: string;
   /** the e-mail address of an active user whose password is MatrixFixtures.password */
   signInEmail: string;
+  /** a drill of the drill owner, shared within the organisation, with an open draft v1 */
+  drillId: string;
+  /** a drill of the drill owner, shared within the organisation, v1 published and no draft */
+  publishedDrillId: string;
 }
 export type FreshKind = keyof FreshIds;
 
@@ -86,6 +98,14 @@ export interface MatrixFixtures {
   runId: string;
   /** the owner's tuning set for the shared plant */
   tuningSetId: string;
+  /** the drill owner's (cohort A instructor's) private drill, draft v1 */
+  privateDrillId: string;
+  /** the drill owner's drill shared within the organisation, v1 published and v2 a draft */
+  sharedDrillId: string;
+  /** the drill owner's shared drill, archived (hidden from other instructors) */
+  archivedDrillId: string;
+  /** the user id of the second organisation's instructor */
+  foreignInstructorId: string;
   presetId: string;
   /** the password of every fixture user (the acting user's current password) */
   password: string;
@@ -134,8 +154,8 @@ export interface ActionCase {
   /** the FormData fields of a valid call */
   form: (fx: MatrixFixtures) => Record<string, string>;
   fresh?: readonly FreshKind[];
-  /** success is this redirect instead of { ok: true } */
-  redirectsTo?: string;
+  /** success is this redirect (the URL, or a pattern it matches) instead of { ok: true } */
+  redirectsTo?: string | RegExp;
   /** false when a successful call need not write (default: success changes the database) */
   writes?: boolean;
 }
@@ -176,6 +196,7 @@ const controller = { kind: "pid", form: "standard", kc: 4, ti: 300, td: 30 };
 const json = (value: unknown) => JSON.stringify(value);
 const plantRef = (id: string) => `plant:${id}`;
 const q = encodeURIComponent;
+const toNewDrill = /^\/drills\/[0-9a-f-]{36}$/;
 
 export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
   // ---------------- route handlers ----------------
@@ -319,6 +340,7 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     cases: [
       { label: "a trainee into cohort A", allowed: who.demoAdmin, form: (fx) => ({ email: `${fx.unique}@access-matrix.test`, role: "trainee", cohortId: fx.cohortId }) },
       { label: "an instructor, no cohort", allowed: who.admins, form: (fx) => ({ email: `${fx.unique}@access-matrix.test`, role: "instructor", cohortId: "" }) },
+      { label: "a trainee into the second organisation's cohort", allowed: ["foreignAdmin"], form: (fx) => ({ email: `${fx.unique}@access-matrix.test`, role: "trainee", cohortId: fx.foreignCohortId }) },
     ],
   },
   {
@@ -340,7 +362,12 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     module: "app/(app)/admin/actions.ts",
     name: "addInstructor",
     rule: "admins, for a cohort and an instructor of their own organisation",
-    cases: [{ label: "an instructor into cohort A", allowed: who.demoAdmin, fresh: ["instructorId"], form: (fx) => ({ cohortId: fx.cohortId, userId: fx.fresh.instructorId }) }],
+    cases: [
+      { label: "an instructor into cohort A", allowed: who.demoAdmin, fresh: ["instructorId"], form: (fx) => ({ cohortId: fx.cohortId, userId: fx.fresh.instructorId }) },
+      // across organisations: neither admin has both the cohort and the instructor
+      { label: "a demo instructor into the second organisation's cohort", allowed: who.nobody, fresh: ["instructorId"], form: (fx) => ({ cohortId: fx.foreignCohortId, userId: fx.fresh.instructorId }) },
+      { label: "the second organisation's instructor into cohort A", allowed: who.nobody, form: (fx) => ({ cohortId: fx.cohortId, userId: fx.foreignInstructorId }) },
+    ],
   },
 
   // ---------------- server actions: cohorts ----------------
@@ -447,5 +474,98 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     name: "deleteRun",
     rule: "the owner only",
     cases: [{ label: "the owner's saved run", allowed: who.owner, fresh: ["runId"], form: (fx) => ({ id: fx.fresh.runId }) }],
+  },
+
+  // ---------------- drills (builder: instructors and admins) ----------------
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/drills",
+    rule: "instructors and admins (trainees 403); lists own drills, shared ones of the organisation, all of it for admins",
+    cases: [
+      { label: "a private drill is listed", allowed: who.privateDrillViewers, deny: "omit", marker: (fx) => fx.privateDrillId, request: () => ({ url: "/api/drills" }) },
+      { label: "a shared drill is listed", allowed: who.sharedDrillViewers, deny: "omit", marker: (fx) => fx.sharedDrillId, request: () => ({ url: "/api/drills" }) },
+      { label: "the list itself", allowed: who.builders, request: () => ({ url: "/api/drills?archived=1" }) },
+    ],
+  },
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/drills/[drillId]",
+    rule: "instructors and admins who may view the drill; 404 otherwise, trainees 403",
+    cases: [
+      { label: "private drill", allowed: who.privateDrillViewers, marker: (fx) => fx.privateDrillId, request: (fx) => ({ url: `/api/drills/${fx.privateDrillId}` }) },
+      { label: "shared drill", allowed: who.sharedDrillViewers, marker: (fx) => fx.sharedDrillId, request: (fx) => ({ url: `/api/drills/${fx.sharedDrillId}` }) },
+      { label: "archived shared drill", allowed: who.privateDrillViewers, marker: (fx) => fx.archivedDrillId, request: (fx) => ({ url: `/api/drills/${fx.archivedDrillId}` }) },
+    ],
+  },
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/drills/[drillId]/versions/[version]",
+    rule: "instructors and admins who may view the drill; 404 otherwise, trainees 403",
+    cases: [
+      { label: "private drill, latest", allowed: who.privateDrillViewers, marker: (fx) => fx.privateDrillId, request: (fx) => ({ url: `/api/drills/${fx.privateDrillId}/versions/latest` }) },
+      { label: "shared drill, published v1", allowed: who.sharedDrillViewers, marker: (fx) => fx.sharedDrillId, request: (fx) => ({ url: `/api/drills/${fx.sharedDrillId}/versions/1` }) },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "createDrill",
+    rule: "instructors and admins, as the owner",
+    cases: [{ label: "from a starter", allowed: who.builders, form: (fx) => ({ title: `Drill ${fx.unique}`, starter: "setpoint-step" }), redirectsTo: toNewDrill }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "saveDraft",
+    rule: "the drill's owner only",
+    cases: [
+      { label: "the private drill's draft", allowed: who.drillOwner, form: (fx) => ({ drillId: fx.privateDrillId, payload: json({ ...ladder, title: `Drill ${fx.unique}` }) }) },
+      { label: "the shared drill's draft", allowed: who.drillOwner, form: (fx) => ({ drillId: fx.sharedDrillId, payload: json({ ...ladder, title: `Drill ${fx.unique}` }) }) },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "publishDraft",
+    rule: "the drill's owner only",
+    cases: [{ label: "a shared drill's draft", allowed: who.drillOwner, fresh: ["drillId"], form: (fx) => ({ drillId: fx.fresh.drillId }) }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "newDraftFromPublished",
+    rule: "the drill's owner only",
+    cases: [{ label: "a shared drill's published v1", allowed: who.drillOwner, fresh: ["publishedDrillId"], form: (fx) => ({ drillId: fx.fresh.publishedDrillId, fromVersion: "1" }) }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "duplicateDrill",
+    rule: "instructors and admins who may view the drill; the copy is theirs",
+    cases: [
+      { label: "the private drill", allowed: who.privateDrillViewers, form: (fx) => ({ drillId: fx.privateDrillId }), redirectsTo: toNewDrill },
+      { label: "the shared drill", allowed: who.sharedDrillViewers, form: (fx) => ({ drillId: fx.sharedDrillId }), redirectsTo: toNewDrill },
+      { label: "the archived shared drill", allowed: who.privateDrillViewers, form: (fx) => ({ drillId: fx.archivedDrillId }), redirectsTo: toNewDrill },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "setDrillShared",
+    rule: "the drill's owner only",
+    cases: [
+      { label: "keep the shared drill shared", allowed: who.drillOwner, form: (fx) => ({ drillId: fx.sharedDrillId, shared: "true" }) },
+      { label: "keep the private drill private", allowed: who.drillOwner, form: (fx) => ({ drillId: fx.privateDrillId, shared: "false" }) },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/drills/actions.ts",
+    name: "archiveDrill",
+    rule: "the drill's owner only",
+    cases: [{ label: "a shared drill", allowed: who.drillOwner, fresh: ["drillId"], form: (fx) => ({ drillId: fx.fresh.drillId, archived: "true" }) }],
   },
 ];

@@ -10,6 +10,7 @@ import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import type { Actor, FreshIds, FreshKind, MatrixFixtures } from "@/app/_lib/access-registry";
 import { createPlant, createRun, createTuningSet, setPlantShared, type BenchUser } from "@/app/_lib/bench-store";
+import { archiveDrill, createDrill, newDraftFromPublished, publishDraft, setDrillShared, type DrillActor } from "@/app/_lib/drills";
 import { hashPassword } from "@/app/_lib/password";
 import { hashToken, newLinkToken, newUserId } from "@/app/_lib/tokens";
 import { getDb } from "@/db/client";
@@ -34,6 +35,7 @@ export interface MatrixWorld {
   /** ids (besides the marker) whose appearance in a row makes the row the matrix's (db-digest.ts) */
   ownIds: string[];
   owner: BenchUser;
+  drillOwner: DrillActor;
   passwordHash: string;
 }
 
@@ -110,6 +112,13 @@ export async function buildWorld(): Promise<MatrixWorld> {
   const run = await createRun(owner, runInput(sharedPlant.ref));
   ownIds.push(privatePlant.id, sharedPlant.id, tuningSet.id, run.id);
 
+  const drillOwner: DrillActor = { id: userIds.instructor!, organizationId: demo.id, role: "instructor" };
+  const privateDrill = await createDrill(drillOwner, { title: `Private drill ${uniqueText()}`, starter: "setpoint-step" });
+  const sharedDrill = await sharedDrillWith(drillOwner, "published v1 and draft v2");
+  const archivedDrill = await sharedDrillWith(drillOwner, "published v1");
+  await archiveDrill(drillOwner, archivedDrill, true);
+  ownIds.push(privateDrill.id, sharedDrill, archivedDrill);
+
   return {
     fixtures: {
       cohortId: cohortA,
@@ -119,6 +128,10 @@ export async function buildWorld(): Promise<MatrixWorld> {
       sharedPlantId: sharedPlant.id,
       runId: run.id,
       tuningSetId: tuningSet.id,
+      privateDrillId: privateDrill.id,
+      sharedDrillId: sharedDrill,
+      archivedDrillId: archivedDrill,
+      foreignInstructorId: userIds.foreignInstructor!,
       presetId: PRESET,
       password: FIXTURE_PASSWORD,
     },
@@ -127,8 +140,18 @@ export async function buildWorld(): Promise<MatrixWorld> {
     foreignOrgId: foreign.id,
     ownIds,
     owner,
+    drillOwner,
     passwordHash,
   };
+}
+
+/** A drill of the owner shared within the organisation: "draft v1", "published v1", or "published v1 and draft v2". */
+async function sharedDrillWith(owner: DrillActor, state: "draft v1" | "published v1" | "published v1 and draft v2"): Promise<string> {
+  const { id } = await createDrill(owner, { title: `Shared drill ${uniqueText()}`, starter: "setpoint-step" });
+  await setDrillShared(owner, id, true);
+  if (state !== "draft v1") await publishDraft(owner, id);
+  if (state === "published v1 and draft v2") await newDraftFromPublished(owner, id);
+  return id;
 }
 
 function runInput(plantRef: string) {
@@ -143,7 +166,19 @@ export async function sessionFor(userId: string): Promise<string> {
   return id;
 }
 
-const FRESH_KINDS: readonly FreshKind[] = ["plantId", "tuningSetId", "runId", "userId", "instructorId", "rosterTraineeId", "invitationToken", "resetToken", "signInEmail"];
+const FRESH_KINDS: readonly FreshKind[] = [
+  "plantId",
+  "tuningSetId",
+  "runId",
+  "userId",
+  "instructorId",
+  "rosterTraineeId",
+  "invitationToken",
+  "resetToken",
+  "signInEmail",
+  "drillId",
+  "publishedDrillId",
+];
 
 /** Makes the fresh things a case asks for; reading one it did not ask for throws. */
 export async function makeFresh(world: MatrixWorld, kinds: readonly FreshKind[]): Promise<FreshIds> {
@@ -202,6 +237,12 @@ export async function makeFresh(world: MatrixWorld, kinds: readonly FreshKind[])
         made.signInEmail = u.email;
         break;
       }
+      case "drillId":
+        made.drillId = await sharedDrillWith(world.drillOwner, "draft v1");
+        break;
+      case "publishedDrillId":
+        made.publishedDrillId = await sharedDrillWith(world.drillOwner, "published v1");
+        break;
       default: {
         const never: never = kind;
         throw new Error(`no fixture for fresh kind ${String(never)}`);
