@@ -24,7 +24,7 @@
 //    posting server-rendered forms to the running app (tests/e2e/accounts.test.ts does that for the
 //    sign-in) because it runs the same code after Next has decoded the form — defineAction's zod
 //    parse, the guard, the handler — in milliseconds per call and without scraping action ids
-//    from pages, so ~300 cells stay fast and deterministic. What it does not exercise is Next's
+//    from pages, so the 600-odd cells stay fast and deterministic. What it does not exercise is Next's
 //    own action routing and its Origin/Host check. Allowed: { ok: true } (or the expected
 //    redirect), and the database changed. Refused: { ok: false } without field errors (a field
 //    error would mean the registry's call is invalid, not that the guard refused), or a redirect
@@ -98,6 +98,9 @@ async function cell(c: RouteCase | ActionCase, actor: Actor) {
 
 const snapshot = () => digest(MARKER, world.ownIds);
 
+/** One row of the matrix: the case as each kind of user, with what should happen. */
+const cellsOf = (c: RouteCase | ActionCase) => ALL_ACTORS.map((actor) => ({ actor, expected: c.allowed.includes(actor) ? "allowed" : "refused" }));
+
 // ---------------------------------------------------------------- completeness
 
 describe("the access registry", () => {
@@ -168,7 +171,7 @@ describe.skipIf(!baseUrl)("route handlers, over HTTP", () => {
     describe(`${entryKey(entry)} — ${entry.rule}`, () => {
       for (const c of entry.cases) {
         describe(c.label, () => {
-          it.each(ALL_ACTORS)(`as %s: ${c.allowed.length ? `only ${c.allowed.join(", ")}` : "nobody"} allowed`, (actor) => routeCell(entry, c, actor));
+          it.each(cellsOf(c))("as $actor → $expected", ({ actor }) => routeCell(entry, c, actor));
         });
       }
     });
@@ -228,7 +231,7 @@ describe("server actions, called in process", () => {
     describe(`${entryKey(entry)} — ${entry.rule}`, () => {
       for (const c of entry.cases) {
         describe(c.label, () => {
-          it.each(ALL_ACTORS)(`as %s: ${c.allowed.length ? `only ${c.allowed.join(", ")}` : "nobody"} allowed`, (actor) => actionCell(entry, c, actor));
+          it.each(cellsOf(c))("as $actor → $expected", ({ actor }) => actionCell(entry, c, actor));
         });
       }
     });
