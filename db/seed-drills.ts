@@ -70,7 +70,7 @@ function airflowDrill(): DrillInput {
     scoring: {
       windows: [
         { id: "take-over", label: "take-over at 50 °C", kind: "setpoint", startS: 0, endS: 2400, weight: 0.5 },
-        { id: "inlet-choked", label: "inlet choked to 35 %", kind: "disturbance", startS: 2400, endS: 3900, weight: 1 },
+        { id: "inlet-choked", label: "inlet airflow down to 35 %", kind: "disturbance", startS: 2400, endS: 3900, weight: 1 },
         { id: "inlet-cleared", label: "inlet brushed clear", kind: "disturbance", startS: 3900, endS: 7800, weight: 1 },
         { id: "door", label: "roller door open 3 min", kind: "disturbance", startS: 7800, endS: 10800, weight: 1 },
       ],

@@ -126,13 +126,19 @@ function ActionButton({ action, label, fields, disabled, tone = "quiet", title }
 
 export function DrillBuilder({ drill: initialDrill, current, actions }: { drill: DrillDetail; current: DrillVersionDocument; actions: DrillBuilderActions }) {
   const router = useRouter();
-  const { data, mutate } = useSWR<{ drill: DrillDetail }>(`/api/drills/${initialDrill.id}`, fetchJson, { fallbackData: { drill: initialDrill } });
-  const drill = data?.drill ?? initialDrill;
+  const { data, mutate } = useSWR<{ drill: DrillDetail }>(`/api/drills/${initialDrill.id}`, fetchJson, { fallbackData: { drill: initialDrill }, revalidateOnMount: true });
+  useEffect(() => {
+    void mutate();
+  }, [initialDrill.updatedAt, initialDrill.latestVersion, mutate]);
+  // the server's props and the SWR copy both refresh after an action: show whichever is newer
+  const fetched = data?.drill;
+  const drill = fetched && (fetched.updatedAt > initialDrill.updatedAt || (fetched.updatedAt === initialDrill.updatedAt && fetched.latestVersion >= initialDrill.latestVersion)) ? fetched : initialDrill;
   const canEdit = drill.mine && !drill.archivedAt;
   const { data: plantData } = useSWR<{ plants: PlantListItem[] }>("/api/plants", fetchJson);
   const storedPlants = (plantData?.plants ?? []).filter((p) => p.source !== "preset");
 
-  const stamp = `${current.version}:${current.status}:${JSON.stringify(current.document).length}:${initialDrill.updatedAt}`;
+  // a new version, a publish or a save elsewhere replaces the edited document (sharing does not)
+  const stamp = `${current.version}:${current.status}:${JSON.stringify(current.document)}`;
   const [doc, setDoc] = useState<Drill>(current.document);
   const [timelineValid, setTimelineValid] = useState(true);
   const [timelineKey, setTimelineKey] = useState(0);
@@ -368,7 +374,7 @@ export function DrillBuilder({ drill: initialDrill, current, actions }: { drill:
             <Choice label="Mode" value={doc.initialState.mode} options={[["auto", "auto"], ["manual", "manual"]]} onChange={(mode) => setInitial({ mode })} />
             <Num label="SP" unit="°C" value={doc.initialState.setpointC} onValue={(v) => setInitial({ setpointC: v ?? Number.NaN })} />
             <Num label="Initial OUT" unit="%" optional value={doc.initialState.outPercent} onValue={(v) => setInitial({ outPercent: v })} hint="empty: the steady output, else 0 %" />
-            {def ? (
+            {def && canEdit ? (
               <button
                 type="button"
                 className="text-xs text-ink-soft underline decoration-rule-strong hover:text-ink"
@@ -415,7 +421,7 @@ export function DrillBuilder({ drill: initialDrill, current, actions }: { drill:
         </fieldset>
 
         <div className="min-w-0 space-y-4">
-          <Section title="Event timeline" aside={<span className="num text-xs text-ink-faint">{doc.events.length} events · 0 – {formatElapsed(doc.durationS)}</span>}>
+          <Section title="Event timeline" aside={<span className="num text-xs text-ink-faint">{doc.events.length} {doc.events.length === 1 ? "event" : "events"} · 0 – {formatElapsed(doc.durationS)}</span>}>
             <TimelineEditor
               key={timelineKey}
               events={doc.events}
@@ -476,6 +482,7 @@ export function DrillBuilder({ drill: initialDrill, current, actions }: { drill:
             <Section
               title="Scoring windows"
               aside={
+                canEdit ? (
                 <button
                   type="button"
                   className="text-xs text-ink-soft underline decoration-rule-strong hover:text-ink"
@@ -487,6 +494,7 @@ export function DrillBuilder({ drill: initialDrill, current, actions }: { drill:
                 >
                   Add window
                 </button>
+                ) : null
               }
             >
               <table className="w-full border-collapse text-sm">

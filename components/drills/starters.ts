@@ -18,7 +18,7 @@ export interface DrillStarter {
 export const DRILL_STARTERS: readonly DrillStarter[] = [
   { id: "blank", title: "Blank drill", summary: "Benchtop curing cabinet held steady, no events, one scoring window over the whole run." },
   { id: "setpoint-step", title: "Setpoint step", summary: "Benchtop curing cabinet: one +15 °C SP step five minutes in, scored on overshoot and settling." },
-  { id: "airflow-disturbance", title: "Airflow disturbance", summary: "Walk-in drying room at 55 °C: the exhaust inlet clogs to 60 % for 30 min, then clears." },
+  { id: "airflow-disturbance", title: "Airflow disturbance", summary: "Walk-in drying room at 55 °C: lint blocks 60 % of the exhaust inlet for 30 min, then it is cleared." },
 ];
 
 export const isStarterId = (id: string) => DRILL_STARTERS.some((s) => s.id === id);
@@ -51,13 +51,13 @@ export function starterDocument(starterId: string, id: string, title: string): D
       id,
       revision: 1,
       title,
-      description: "Drying room D-1 holds 55 °C for a timber batch. Half an hour in, lint clogs the exhaust inlet to 60 %; it is cleared 30 min later. Hold 55 °C through both changes.",
+      description: "Drying room D-1 holds 55 °C for a timber batch. Half an hour in, lint blocks 60 % of the exhaust inlet (airflow down to 40 %); it is cleared 30 min later. Hold 55 °C through both changes.",
       plant: { kind: "preset", presetId: room.id },
       initialState: { temperatures: { kind: "steady", outPercent: out }, mode: "auto", setpointC: 55, outPercent: out },
       events: [{ type: "inlet-blockage", timeS: 1800, percent: 60, durationS: 1800 }],
       scoring: {
         windows: [
-          { id: "clog", label: "inlet clogs to 60 %", kind: "disturbance", startS: 1800, endS: 3600, weight: 1 },
+          { id: "clog", label: "inlet 60 % blocked", kind: "disturbance", startS: 1800, endS: 3600, weight: 1 },
           { id: "clear", label: "inlet cleared", kind: "disturbance", startS: 3600, endS: 6000, weight: 1 },
         ],
       },

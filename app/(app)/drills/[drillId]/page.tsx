@@ -19,7 +19,7 @@ export default async function DrillPage({ params, searchParams }: { params: Prom
   if (!current) notFound();
   return (
     <DrillBuilder
-      key={`${current.drillId}:${current.version}`}
+      key={current.drillId}
       drill={drill}
       current={current}
       actions={{ saveDraft, publishDraft, newDraftFromPublished, duplicateDrill, setDrillShared, archiveDrill }}
