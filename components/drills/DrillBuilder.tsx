@@ -268,7 +268,13 @@ export function DrillBuilder({ drill: initialDrill, current, actions }: { drill:
               label={`Publish v${draftVersion}`}
               fields={{ drillId: drill.id }}
               disabled={dirty || current.version !== draftVersion}
-              title={dirty ? "Save the draft first: publishing freezes what is saved." : `Freezes version ${draftVersion}; attempts will run exactly this document.`}
+              title={
+                dirty
+                  ? "Save the draft first: publishing freezes what is saved."
+                  : current.version !== draftVersion
+                    ? `Open draft v${draftVersion} (Versions) to publish it.`
+                    : `Freezes version ${draftVersion}; attempts will run exactly this document.`
+              }
             />
           ) : null}
           {canEdit && draftVersion === null ? <ActionButton action={newDraft} label={`New version (v${latestVersion + 1})`} fields={{ drillId: drill.id }} disabled={dirty} title="Opens a draft copying the latest published version." /> : null}
@@ -446,7 +452,7 @@ export function DrillBuilder({ drill: initialDrill, current, actions }: { drill:
             {preview ? (
               <>
                 {previewStale ? <p className="text-xs text-caution">The drill changed since this preview: press Preview again.</p> : null}
-                <PreviewChart series={preview.series} marks={preview.marks} windows={preview.windows} />
+                <PreviewChart series={preview.series} marks={preview.marks} windows={preview.windows} fileName={`drill-${drill.id.slice(0, 8)}-v${current.version}-preview`} />
                 <table className="w-full border-collapse text-xs" data-testid="preview-results">
                   <thead>
                     <tr className="border-b border-rule text-left text-ink-faint">

@@ -31,8 +31,9 @@ export interface PreviewWindow {
 const GRID = "#e3e0d8";
 const INK = "#4b5258";
 
-export function PreviewChart({ series, marks, windows }: { series: PreviewSeries; marks: PreviewMark[]; windows: PreviewWindow[] }) {
+export function PreviewChart({ series, marks, windows, fileName = "drill-preview" }: { series: PreviewSeries; marks: PreviewMark[]; windows: PreviewWindow[]; fileName?: string }) {
   const host = useRef<HTMLDivElement>(null);
+  const plot = useRef<uPlot | null>(null);
   useEffect(() => {
     if (!host.current || series.length === 0) return;
     const x = series.timeS;
@@ -89,7 +90,26 @@ export function PreviewChart({ series, marks, windows }: { series: PreviewSeries
       [d.x, ...d.series] as uPlot.AlignedData,
       host.current,
     );
-    return () => u.destroy();
+    plot.current = u;
+    return () => {
+      plot.current = null;
+      u.destroy();
+    };
   }, [series, marks, windows]);
-  return <div ref={host} className="lw-trend" data-testid="drill-preview-chart" />;
+  const exportPng = () => {
+    const canvas = plot.current?.ctx.canvas;
+    if (!canvas) return;
+    const a = document.createElement("a");
+    a.href = canvas.toDataURL("image/png");
+    a.download = `${fileName}.png`;
+    a.click();
+  };
+  return (
+    <div className="space-y-1">
+      <div ref={host} className="lw-trend" data-testid="drill-preview-chart" />
+      <button type="button" onClick={exportPng} className="text-xs text-ink-soft underline decoration-rule-strong hover:text-ink">
+        Export chart (PNG)
+      </button>
+    </div>
+  );
 }
