@@ -6,6 +6,7 @@ import postgres from "postgres";
 import { hashPassword } from "../app/_lib/password";
 import { newUserId } from "../app/_lib/tokens";
 import { cohortMemberships, cohorts, organizations, users } from "./schema";
+import { seedDemoDrills } from "./seed-drills";
 
 export const DEMO_PASSWORD = "demo-loop-2026";
 export const DEMO_ORGANIZATION = "Kestrel Fen Technical College — Mechatronics Lab";
@@ -73,6 +74,7 @@ export async function seedDemo(url: string): Promise<void> {
   } finally {
     await client.end();
   }
+  await seedDemoDrills(url);
 }
 
 if (process.argv[1]?.endsWith("seed.ts")) {
