@@ -1,5 +1,5 @@
 /**
- * Plant presets: fictional rigs of the Loopwright training centre ("Harrowgate Controls Lab",
+ * Plant presets: fictional rigs of the Loopwright demo training centre (the "Kestrel Fen Technical College" mechatronics lab,
  * invented here). The numbers are our own estimates for enclosures of this size, stated with
  * their reasoning so an instructor can judge them.
  */
