@@ -9,7 +9,7 @@ import { drillSchema, type DrillInput } from "../sim/drill/schema";
 import { steadyStateTemperatureC } from "../sim/plant/derived-figures";
 import { findPreset } from "../sim/plant/presets";
 import { drills, drillVersions, users } from "./schema";
-import { demoPeople } from "./seed";
+import { demoPeople } from "./demo-people";
 
 export const DEMO_DRILL_IDS = {
   ladder: "6b1d2c40-7a1e-4c55-9e0a-3f8d2b6c1a01",

@@ -6,33 +6,10 @@ import postgres from "postgres";
 import { hashPassword } from "../app/_lib/password";
 import { newUserId } from "../app/_lib/tokens";
 import { cohortMemberships, cohorts, organizations, users } from "./schema";
+import { DEMO_COHORT, DEMO_ORGANIZATION, DEMO_PASSWORD, demoPeople } from "./demo-people";
 import { seedDemoDrills } from "./seed-drills";
 
-export const DEMO_PASSWORD = "demo-loop-2026";
-export const DEMO_ORGANIZATION = "Kestrel Fen Technical College — Mechatronics Lab";
-export const DEMO_COHORT = "Process Control 2 — Spring block";
-
-export const demoPeople = {
-  admin: { email: "admin@kestrelfen.example", displayName: "Ines Varga", role: "admin" as const },
-  instructors: [
-    { email: "m.okafor@kestrelfen.example", displayName: "Marcus Okafor", role: "instructor" as const },
-    { email: "h.lindqvist@kestrelfen.example", displayName: "Hanne Lindqvist", role: "instructor" as const },
-  ],
-  trainees: [
-    "Arjun Mehta",
-    "Bea Castell",
-    "Cormac Doyle",
-    "Dalia Rahman",
-    "Emil Sørby",
-    "Fenna Brouwer",
-    "Gideon Ashe",
-    "Hoa Tran",
-  ].map((name) => ({
-    email: `${name.split(" ")[0].toLowerCase()}@students.kestrelfen.example`,
-    displayName: name,
-    role: "trainee" as const,
-  })),
-};
+export { DEMO_COHORT, DEMO_ORGANIZATION, DEMO_PASSWORD, demoPeople } from "./demo-people";
 
 export async function seedDemo(url: string): Promise<void> {
   const client = postgres(url, { max: 1, onnotice: () => {} });
