@@ -83,11 +83,14 @@ const SESSION_COOKIE = "loopwright_session";
 const PEER = "access-matrix-peer"; // what server.ts puts in x-loopwright-peer
 const signedOut = (actor: Actor) => actor === "anonymous" || actor === "deactivated";
 
+// Built once, by the first suite that runs cells; the registry checks need no database, so
+// `vitest run tests/integration/access-matrix.test.ts -t "access registry"` lists what is missing.
 let world: MatrixWorld;
-
-beforeAll(async () => {
-  world = await buildWorld();
-}, 60_000);
+let building: Promise<MatrixWorld> | null = null;
+const needWorld = () =>
+  beforeAll(async () => {
+    world = await (building ??= buildWorld());
+  }, 60_000);
 
 async function cell(c: RouteCase | ActionCase, actor: Actor) {
   const fresh = await makeFresh(world, c.fresh ?? []);
@@ -167,6 +170,7 @@ async function routeCell(entry: RouteEntry, c: RouteCase, actor: Actor) {
 }
 
 describe.skipIf(!baseUrl)("route handlers, over HTTP", () => {
+  needWorld();
   for (const entry of ACCESS_REGISTRY.filter((e): e is RouteEntry => e.kind === "route")) {
     describe(`${entryKey(entry)} — ${entry.rule}`, () => {
       for (const c of entry.cases) {
@@ -227,6 +231,7 @@ async function actionCell(entry: ActionEntry, c: ActionCase, actor: Actor) {
 }
 
 describe("server actions, called in process", () => {
+  needWorld();
   for (const entry of ACCESS_REGISTRY.filter((e): e is ActionEntry => e.kind === "action")) {
     describe(`${entryKey(entry)} — ${entry.rule}`, () => {
       for (const c of entry.cases) {
