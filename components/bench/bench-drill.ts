@@ -52,7 +52,11 @@ export function benchDrill(opts: {
     plant: opts.plant.kind === "preset" ? { kind: "preset", presetId: opts.plant.presetId } : opts.plant.definition,
     initialState: { temperatures: { kind: "steady", outPercent: out }, mode: "auto", setpointC: opts.setpointC, outPercent: out },
     events: [],
-    scoring: { windows: [{ id: "run", label: "whole run", kind: "setpoint", startS: 0, endS: BENCH_DURATION_S }] },
+    // one whole-run window without step metrics (free practice has no single step); the live
+    // results table measures each SP change and disturbance on its own
+    scoring: { windows: [{ id: "run", label: "whole run", kind: "disturbance", startS: 0, endS: BENCH_DURATION_S, eventTimeS: 0 }] },
+    // free practice: the operator changes SP, mode and manual OUT at will
+    trainee: { mayChange: { pvFilter: true, sampleTime: true, operation: true } },
     referenceTuning: opts.reference,
     noise: { seedPolicy: "fixed", seed: opts.seed },
     ...(opts.plant.kind === "stored" ? { cutout: { tripPointC: opts.plant.cutoutTripC } } : {}),

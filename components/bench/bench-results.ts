@@ -28,7 +28,9 @@ export function benchWindows(trace: Trace, events: SimEvent[], noiseSigmaC: numb
   marks.sort((a, b) => a.timeS - b.timeS);
   return marks.slice(-8).map((m, idx, all) => {
     const next = all.slice(idx + 1).find((o) => o.timeS > m.timeS);
-    const windowEndS = Math.min(endS, next ? next.timeS : Infinity, m.kind === "disturbance" ? m.timeS + DISTURBANCE_SPAN_S : Infinity);
+    // a window ends just before the next change (its sample belongs to the next window)
+    const ts = n > 1 ? trace.timeS[1] - trace.timeS[0] : 1;
+    const windowEndS = Math.min(endS, next ? next.timeS - ts / 2 : Infinity, m.kind === "disturbance" ? m.timeS + DISTURBANCE_SPAN_S : Infinity);
     const results = computeWindowResults({
       t: trace.timeS,
       y: trace.trueC,

@@ -50,6 +50,6 @@ export function makeReplayBundle(p: {
         .map((w) => ({ ...w, endS: Math.min(w.endS, durationS) })),
     },
   };
-  if (drill.scoring.windows.length === 0) drill.scoring = { ...drill.scoring, windows: [{ id: "run", kind: "setpoint", startS: 0, endS: durationS }] };
+  if (drill.scoring.windows.length === 0) drill.scoring = { ...drill.scoring, windows: [{ id: "run", kind: "disturbance", startS: 0, endS: durationS, eventTimeS: 0 }] };
   return { format: REPLAY_FORMAT, version: 1, engineVersion: p.engineVersion, drill, controller: p.controller, seed: p.seed, actions: [...p.actions], rows: p.rows, fingerprint: p.fingerprint };
 }

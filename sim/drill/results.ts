@@ -7,6 +7,9 @@ import { computeWindowResults, type WindowResults } from "../results/window";
 import type { SafetyTrip } from "../safety/cutout";
 import type { Drill, ScoringWindow } from "./schema";
 import type { Trace } from "./trace";
+import { expandTimeline } from "./timeline";
+import { resolvePlant } from "./resolve";
+import { SAME_INSTANT_S } from "../actuator/heater-drive";
 
 export interface WindowResultPair {
   id: string;
@@ -43,37 +46,69 @@ export interface ResultsContext {
   controllerViolations: string[];
 }
 
-function setpointStep(trace: Trace, eventTimeS: number, endS: number): number | undefined {
+function setpointStep(sp: ArrayLike<number>, trace: Trace, eventTimeS: number, endS: number): number | undefined {
   const ts = trace.length > 1 ? trace.timeS[1] - trace.timeS[0] : 1;
   const before = Math.max(0, Math.min(trace.length - 1, Math.round(eventTimeS / ts) - 1));
-  const end = Math.max(0, Math.min(trace.length - 1, Math.round(endS / ts)));
-  const step = trace.setpointC[end] - trace.setpointC[before];
+  const end = Math.max(0, Math.min(trace.length - 1, Math.floor(endS / ts)));
+  const step = sp[end] - sp[before];
   return step !== 0 ? step : undefined;
 }
 
-/** A setpoint window ends before the next setpoint change inside it (the measures are about one step). */
-function effectiveEnd(trace: Trace, kind: string, eventTimeS: number, endS: number): number {
-  if (kind !== "setpoint" || trace.length < 2) return endS;
-  const ts = trace.timeS[1] - trace.timeS[0];
-  const i0 = Math.max(0, Math.round(eventTimeS / ts));
-  const i1 = Math.min(trace.length - 1, Math.round(endS / ts));
-  for (let i = i0 + 1; i <= i1; i++) if (trace.setpointC[i] !== trace.setpointC[i0]) return trace.timeS[i - 1];
-  return endS;
+/** Start times of the drill's own setpoint changes (steps and ramps), sorted. */
+function scriptedSetpointTimes(drill: Drill): number[] {
+  return drill.events
+    .filter((e) => e.type === "setpoint" || e.type === "setpoint-ramp")
+    .map((e) => e.timeS)
+    .sort((a, b) => a - b);
 }
 
-function windowPair(trace: Trace, win: Pick<ScoringWindow, "kind" | "startS" | "endS" | "eventTimeS">, ctx: ResultsContext) {
+/**
+ * A setpoint window ends just before the drill's next scripted setpoint change inside it, so its
+ * measures are about one step. Only the drill's timeline counts: an operator's own SP change must
+ * not cut a scored window short (that would shrink its IAE and settling horizon).
+ */
+function effectiveEnd(drill: Drill, trace: Trace, kind: string, eventTimeS: number, endS: number): number {
+  if (kind !== "setpoint" || trace.length < 2) return endS;
+  const ts = trace.timeS[1] - trace.timeS[0];
+  const next = scriptedSetpointTimes(drill).find((t) => t > eventTimeS + ts / 2 && t <= endS);
+  return next === undefined ? endS : next - ts / 2;
+}
+
+/**
+ * The setpoint the drill prescribes at every sample: its initial SP and its own timeline (a ramp
+ * as the same staircase the simulation applies), applied at the first sample at or after each
+ * change. Scored windows measure against it unless the trainee may operate the loop, so setting
+ * the SP back by hand cannot make a step look easy.
+ */
+function scriptedSetpoint(drill: Drill, trace: Trace): Float64Array {
+  const ts = trace.length > 1 ? trace.timeS[1] - trace.timeS[0] : drill.referenceTuning.sampleTimeS;
+  const changes = expandTimeline(drill.events, resolvePlant(drill), ts).filter((c) => c.change.kind === "setpoint");
+  const out = new Float64Array(trace.length);
+  let sp = drill.initialState.setpointC;
+  let j = 0;
+  for (let k = 0; k < trace.length; k++) {
+    while (j < changes.length && changes[j].timeS <= trace.timeS[k] + SAME_INSTANT_S) {
+      const c = changes[j++].change;
+      if (c.kind === "setpoint") sp = c.setpointC;
+    }
+    out[k] = sp;
+  }
+  return out;
+}
+
+function windowPair(trace: Trace, win: Pick<ScoringWindow, "kind" | "startS" | "endS" | "eventTimeS">, ctx: ResultsContext, sp: ArrayLike<number> = trace.setpointC) {
   const eventTimeS = win.eventTimeS ?? win.startS;
-  const w = { ...win, endS: effectiveEnd(trace, win.kind, eventTimeS, win.endS) };
+  const w = { ...win, endS: effectiveEnd(ctx.drill, trace, win.kind, eventTimeS, win.endS) };
   const common = {
     t: trace.timeS,
-    sp: trace.setpointC,
+    sp,
     out: trace.outPercent,
     heaterPowerW: trace.heaterPowerW,
     windowStartS: w.startS,
     windowEndS: w.endS,
     kind: w.kind,
     eventTimeS,
-    stepSizeC: w.kind === "setpoint" ? setpointStep(trace, eventTimeS, w.endS) : undefined,
+    stepSizeC: w.kind === "setpoint" ? setpointStep(sp, trace, eventTimeS, w.endS) : undefined,
     bandFloorC: ctx.drill.scoring.bandFloorC,
     noiseSigmaC: ctx.noiseSigmaC,
     cutoutPointC: ctx.cutoutPointC,
@@ -86,14 +121,16 @@ function windowPair(trace: Trace, win: Pick<ScoringWindow, "kind" | "startS" | "
 
 export function computeRunResults(trace: Trace, ctx: ResultsContext): RunResults {
   const d = ctx.drill;
+  const sp = d.trainee.mayChange.operation ? trace.setpointC : scriptedSetpoint(d, trace);
   return {
     engineVersion: ctx.engineVersion,
     drillId: d.id,
     drillRevision: d.revision,
     formatVersion: d.formatVersion,
     seed: ctx.seed,
-    windows: d.scoring.windows.map((w) => ({ id: w.id, label: w.label ?? w.id, kind: w.kind, weight: w.weight, ...windowPair(trace, w, ctx) })),
-    wholeRun: windowPair(trace, { kind: "setpoint", startS: 0, endS: d.durationS }, ctx),
+    windows: d.scoring.windows.map((w) => ({ id: w.id, label: w.label ?? w.id, kind: w.kind, weight: w.weight, ...windowPair(trace, w, ctx, sp) })),
+    // the whole run has no single step: integrals, effort, energy and peak deviation over [0, end]
+    wholeRun: windowPair(trace, { kind: "disturbance", startS: 0, endS: d.durationS, eventTimeS: 0 }, ctx, sp),
     safetyTrips: [...ctx.safetyTrips],
     heaterEnergyKWh: ctx.heaterEnergyKWh,
     controllerViolations: ctx.controllerViolations,

@@ -76,12 +76,15 @@ function energyKWh(trace: Trace, ts: number): number {
   return e / 3.6e6;
 }
 
-/** Rule violations of the starting configuration and of every tuning change in the log. */
+/** Rule violations of the starting configuration, of every tuning change in the log, and of operator actions the drill does not allow. */
 function allViolations(drill: Drill, cfg: ControllerConfig, actions: readonly StampedAction[]): string[] {
   const found = new Set(controllerViolations(drill, cfg));
   for (const a of actions) {
-    if (a.type !== "tuning") continue;
-    for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) found.add(v);
+    if (a.type === "tuning") {
+      for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) found.add(v);
+    } else if ((a.type === "setpoint" || a.type === "mode" || a.type === "manual-output") && !drill.trainee.mayChange.operation) {
+      found.add(`${a.type} (operating the loop is not allowed in this drill)`);
+    }
   }
   return [...found];
 }

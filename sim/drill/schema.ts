@@ -139,6 +139,8 @@ export const traineeSchema = z
         tuning: z.literal(true).default(true).describe("gains, times, form, filter on D, weights, anti-windup: always"),
         pvFilter: z.boolean().default(true),
         sampleTime: z.boolean().default(false),
+        /** operating the loop during the attempt: SP changes, auto/manual, manual OUT (free practice: yes; scored drills: usually no) */
+        operation: z.boolean().default(false),
       })
       .strict()
       .prefault({}),

@@ -145,7 +145,10 @@ export class Simulation {
   /** Apply an operator action at the next sample boundary; returns it stamped (for the log). */
   act(action: OperatorAction): StampedAction {
     const stamped = { ...action, sample: this.k } as StampedAction;
-    this.pending.push(stamped);
+    // keep the queue in stamp order (a replayed log may already hold later actions), stable for equal stamps
+    let i = this.pending.length;
+    while (i > 0 && this.pending[i - 1].sample > stamped.sample) i--;
+    this.pending.splice(i, 0, stamped);
     return stamped;
   }
 
