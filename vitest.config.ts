@@ -6,7 +6,9 @@ const root = fileURLToPath(new URL(".", import.meta.url));
 
 // Four projects: pure unit tests (sim/ and helpers), component tests in jsdom, integration tests
 // against a real PostgreSQL database, and browser end-to-end tests against the production build.
-// tests/run-all.ts provides the database and the running app for the last two.
+// tests/run-all.ts provides the database and the running app for the last two. groupOrder runs
+// them one after another (pure tests first, then the database, then the browser), so the 2-core
+// machine is not shared between chromium, the app server and CPU-heavy unit tests.
 export default defineConfig({
   plugins: [react()],
   resolve: { alias: { "@": root } },
@@ -14,7 +16,7 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", environment: "node", include: ["tests/sim/**/*.test.ts", "tests/unit/**/*.test.ts"] },
+        test: { name: "unit", environment: "node", include: ["tests/sim/**/*.test.ts", "tests/unit/**/*.test.ts"], sequence: { groupOrder: 0 } },
       },
       {
         extends: true,
@@ -23,6 +25,7 @@ export default defineConfig({
           environment: "jsdom",
           globals: true,
           include: ["tests/components/**/*.test.tsx"],
+          sequence: { groupOrder: 0 },
         },
       },
       {
@@ -32,6 +35,7 @@ export default defineConfig({
           environment: "node",
           include: ["tests/integration/**/*.test.ts"],
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
           testTimeout: 30_000,
         },
       },
@@ -42,6 +46,7 @@ export default defineConfig({
           environment: "node",
           include: ["tests/e2e/**/*.test.ts"],
           fileParallelism: false,
+          sequence: { groupOrder: 2 },
           testTimeout: 90_000,
           hookTimeout: 90_000,
         },

@@ -61,6 +61,15 @@ export async function organizationUsers(organizationId: string) {
     .orderBy(asc(users.role), asc(users.displayName));
 }
 
-export async function recentMail(limit = 50) {
-  return getDb().select().from(caughtMail).orderBy(desc(caughtMail.receivedAt)).limit(limit);
+/** Caught mail addressed to the organisation's users or to its invitations only: an admin never reads another organisation's links. */
+export async function recentMail(organizationId: string, limit = 50) {
+  return getDb()
+    .select()
+    .from(caughtMail)
+    .where(
+      sql`exists (select 1 from ${users} u where u.organization_id = ${organizationId} and lower(u.email) = any(${caughtMail.envelopeTo}))
+          or exists (select 1 from ${invitations} i where i.organization_id = ${organizationId} and lower(i.email) = any(${caughtMail.envelopeTo}))`,
+    )
+    .orderBy(desc(caughtMail.receivedAt))
+    .limit(limit);
 }

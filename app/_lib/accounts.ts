@@ -72,6 +72,8 @@ export async function resetPassword(token: string, password: string): Promise<vo
       .where(and(eq(passwordResetTokens.tokenHash, hashToken(token)), isNull(passwordResetTokens.usedAt), gt(passwordResetTokens.expiresAt, new Date())))
       .returning();
     if (!spent) throw new ActionRefused("This reset link has expired or was already used. Ask for a new one.");
+    // any other open link for this account dies with this one
+    await tx.update(passwordResetTokens).set({ usedAt: new Date() }).where(and(eq(passwordResetTokens.userId, spent.userId), isNull(passwordResetTokens.usedAt)));
     await tx.update(users).set({ passwordHash }).where(eq(users.id, spent.userId));
     return spent.userId;
   });

@@ -39,10 +39,9 @@ describe("the Bench", () => {
     await page.getByTestId("sp-input").fill("72");
     await page.getByTestId("sp-input").press("Enter");
     // 10 min of simulated time at ×600 is about a second of wall time
-    await expect.poll(async () => Number(await page.getByTestId("pv-readout").textContent()), { timeout: 20_000, interval: 250 }).toBeGreaterThan(71.2);
-    await page.waitForTimeout(1500);
-    const pv = Number(await page.getByTestId("pv-readout").textContent());
-    expect(Math.abs(pv - 72)).toBeLessThan(0.6);
+    await expect.poll(async () => Number(await page.getByTestId("pv-readout").textContent()), { timeout: 30_000, interval: 250 }).toBeGreaterThan(71.2);
+    // then settled near the new SP (filtered PV within 0.6 °C), however fast the worker runs
+    await expect.poll(async () => Math.abs(Number(await page.getByTestId("pv-readout").textContent()) - 72), { timeout: 30_000, interval: 250 }).toBeLessThan(0.6);
     await page.getByRole("button", { name: "Pause" }).click();
     await screenshot(page, "bench-after-step");
   });
@@ -74,7 +73,7 @@ describe("the Bench", () => {
     await page.getByTestId("pv-readout").filter({ hasText: /\d/ }).waitFor();
     const row = page.getByRole("row").filter({ hasText: title });
     await screenshot(page, "saved-run-listed");
-    await row.getByRole("button", { name: "Open" }).click({ timeout: 5000 });
+    await row.getByRole("button", { name: "Open" }).click();
     // the worker replays it to its end at full speed; ask for the fingerprint until it has
     await expect
       .poll(

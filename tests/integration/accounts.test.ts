@@ -3,13 +3,14 @@
 // (generic failure message, lockout, single-use expiring reset tokens) — from memory, common practice.
 import { and, eq, sql as dsql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { acceptInvitation, checkSignIn, inviteByEmail, requestPasswordReset, resetPassword, setUserActive } from "@/app/_lib/accounts";
+import { acceptInvitation, checkSignIn, createFirstAdmin, inviteByEmail, requestPasswordReset, resetPassword, setUserActive } from "@/app/_lib/accounts";
+import { recentMail } from "@/db/queries";
 import { ActionRefused } from "@/app/_lib/action";
 import { hashPassword } from "@/app/_lib/password";
 import { SIGN_IN_LIMITS } from "@/app/_lib/rate-limit";
 import { newUserId } from "@/app/_lib/tokens";
 import { getDb } from "@/db/client";
-import { cohortMemberships, cohorts, invitations, passwordResetTokens, sessions, signInAttempts, users } from "@/db/schema";
+import { caughtMail, cohortMemberships, cohorts, invitations, passwordResetTokens, sessions, signInAttempts, users } from "@/db/schema";
 import { DEMO_COHORT, demoPeople } from "@/db/seed";
 import { linkIn, uniqueEmail, waitForMail } from "./helpers";
 
@@ -70,6 +71,21 @@ describe("sign-in checks", () => {
   });
 });
 
+describe("the mailbox", () => {
+  it("shows an admin only the mail of their own organisation", async () => {
+    const { inviter, cohortId } = await demoInstructor();
+    const email = uniqueEmail("scoped");
+    await inviteByEmail(inviter, { email, role: "trainee", cohortId });
+    await waitForMail(email, "invitation");
+    const other = await createFirstAdmin({ organization: `Elsewhere Works ${Date.now()}`, email: uniqueEmail("otheradmin"), displayName: "Other Admin", password: "long enough pw" });
+    const [otherAdmin] = await getDb().select().from(users).where(eq(users.id, other));
+    const theirs = await recentMail(otherAdmin.organizationId, 500);
+    expect(theirs.some((m) => m.envelopeTo.includes(email))).toBe(false);
+    const ours = await recentMail(inviter.organizationId, 500);
+    expect(ours.some((m) => m.envelopeTo.includes(email))).toBe(true);
+  });
+});
+
 describe("invitations", () => {
   it("mails a link over SMTP; accepting it creates the account in the cohort, once", async () => {
     const { inviter, cohortId } = await demoInstructor();
@@ -116,6 +132,20 @@ describe("password reset", () => {
     await expect(checkSignIn(email, "brand new password", "10.3.0.1")).resolves.toBe(id);
     await expect(resetPassword(token, "another password")).rejects.toThrow(/expired or was already used/);
     await expect(requestPasswordReset(uniqueEmail("ghost"))).resolves.toBeUndefined();
+  });
+
+  it("using one reset link kills the account's other open links", async () => {
+    const { id, email } = await makeUser("old password 123");
+    await requestPasswordReset(email);
+    const first = linkIn((await waitForMail(email, "Reset")).textBody, "/reset-password").token;
+    await new Promise((r) => setTimeout(r, 20));
+    await requestPasswordReset(email);
+    const mails = await getDb().select().from(caughtMail).where(dsql`${email} = any(${caughtMail.envelopeTo})`);
+    expect(mails.length).toBe(2);
+    const second = mails.map((m) => linkIn(m.textBody, "/reset-password").token).find((t) => t !== first)!;
+    await resetPassword(second, "brand new password");
+    await expect(resetPassword(first, "another new password")).rejects.toThrow(/expired or was already used/);
+    await expect(checkSignIn(email, "brand new password", "10.5.0.1")).resolves.toBe(id);
   });
 
   it("refuses an expired token and keeps the old password", async () => {

@@ -3,7 +3,7 @@ import { getDb } from "@/db/client";
 import { caughtMail } from "@/db/schema";
 
 /** Waits for a message to an address to reach the SMTP catcher (which stores it in PostgreSQL). */
-export async function waitForMail(to: string, subjectIncludes: string, timeoutMs = 10_000) {
+export async function waitForMail(to: string, subjectIncludes: string, timeoutMs = 30_000) {
   const started = Date.now();
   while (Date.now() - started < timeoutMs) {
     const [mail] = await getDb()

@@ -11,7 +11,7 @@ export function ExperimentTable({ rows, onLoad }: { rows: VariantRun[]; onLoad?:
   if (rows.length === 0) return null;
   return (
     <table className="w-full border-collapse text-sm" data-testid="experiment-table">
-      <TableHead columns={["run", "window", "rise", "overshoot", "settling", "IAE", "peak dev.", "recovery", ""]} />
+      <TableHead columns={["run", "window", "rise", "overshoot", "settling", "IAE °C·s", "peak dev.", "recovery", ""]} />
       <tbody className="num">
         {rows.flatMap((r) =>
           r.results.windows.map((w, wi) => {

@@ -11,13 +11,13 @@ const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: 
 
 /** Mail caught by the local SMTP catcher; only when MAILBOX_ENABLED=true (local and demo installs). */
 export default async function MailboxPage() {
-  await guardPage({ roles: ["admin"] });
+  const admin = await guardPage({ roles: ["admin"] });
   if (!mailboxEnabled()) notFound();
-  const mail = await recentMail();
+  const mail = await recentMail(admin.organizationId);
   return (
     <section>
       <h1 className="mb-1 text-xl font-semibold">Mailbox</h1>
-      <p className="mb-6 text-sm text-ink-soft">Mail this installation sent, caught locally instead of being delivered. Newest first.</p>
+      <p className="mb-6 text-sm text-ink-soft">Mail this installation sent to your organisation's people, caught locally instead of being delivered. Newest first.</p>
       {mail.length === 0 ? <p className="text-sm text-ink-faint">Nothing caught yet.</p> : null}
       <ol className="space-y-4">
         {mail.map((m) => (
