@@ -12,6 +12,9 @@ export const SIGN_IN_LIMITS = {
 } as const;
 
 export const accountKey = (email: string) => `account:${email.trim().toLowerCase()}`;
+/** Password-reset requests per client address, in the same counters (a window and a lock). */
+export const resetRequestKey = (address: string) => `reset:${address}`;
+export const RESET_REQUEST_LIMIT = 10;
 export const addressKey = (address: string) => `address:${address}`;
 
 /** Minutes until the first of these keys unlocks, or 0 when none is locked. */
