@@ -24,6 +24,15 @@ export const userStatus = pgEnum("user_status", ["active", "deactivated"]);
 export const membershipRole = pgEnum("membership_role", ["trainee", "instructor"]);
 
 const createdAt = () => timestamp("created_at", { withTimezone: true, mode: "date" }).notNull().defaultNow();
+// the organisation a row belongs to, and the user who owns it (references resolved lazily)
+const organizationRef = () =>
+  uuid("organization_id")
+    .notNull()
+    .references(() => organizations.id);
+const ownerRef = () =>
+  text("owner_id")
+    .notNull()
+    .references(() => users.id);
 
 export const organizations = pgTable("organizations", {
   id: uuid("id").primaryKey().defaultRandom(),
@@ -36,9 +45,7 @@ export const users = pgTable(
   {
     // Lucia wants a string id.
     id: text("id").primaryKey(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
+    organizationId: organizationRef(),
     email: text("email").notNull(),
     displayName: text("display_name").notNull(),
     passwordHash: text("password_hash").notNull(),
@@ -82,9 +89,7 @@ export const cohorts = pgTable(
   "cohorts",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
+    organizationId: organizationRef(),
     name: text("name").notNull(),
     // IANA time zone; assignment dates are shown and interpreted in it.
     timeZone: text("time_zone").notNull(),
@@ -114,9 +119,7 @@ export const invitations = pgTable(
   "invitations",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
+    organizationId: organizationRef(),
     cohortId: uuid("cohort_id").references(() => cohorts.id, { onDelete: "cascade" }),
     email: text("email").notNull(),
     role: userRole("role").notNull(),
@@ -172,12 +175,8 @@ export const plants = pgTable(
   "plants",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
-    ownerId: text("owner_id")
-      .notNull()
-      .references(() => users.id),
+    organizationId: organizationRef(),
+    ownerId: ownerRef(),
     name: text("name").notNull(),
     description: text("description").notNull().default(""),
     /** a PlantDefinition (sim/plant/plant-definition.ts), parsed output with defaults filled */
@@ -195,12 +194,8 @@ export const tuningSets = pgTable(
   "tuning_sets",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
-    ownerId: text("owner_id")
-      .notNull()
-      .references(() => users.id),
+    organizationId: organizationRef(),
+    ownerId: ownerRef(),
     plantRef: text("plant_ref").notNull(),
     name: text("name").notNull(),
     /** a ControllerConfig (sim/control/config.ts) */
@@ -215,12 +210,8 @@ export const savedRuns = pgTable(
   "saved_runs",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
-    ownerId: text("owner_id")
-      .notNull()
-      .references(() => users.id),
+    organizationId: organizationRef(),
+    ownerId: ownerRef(),
     plantRef: text("plant_ref").notNull(),
     title: text("title").notNull(),
     /** the drill document the Bench ran (sim/drill/schema.ts, parsed) */
@@ -257,12 +248,8 @@ export const drills = pgTable(
   "drills",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    organizationId: uuid("organization_id")
-      .notNull()
-      .references(() => organizations.id),
-    ownerId: text("owner_id")
-      .notNull()
-      .references(() => users.id),
+    organizationId: organizationRef(),
+    ownerId: ownerRef(),
     /** the latest version's title, kept here for lists */
     title: text("title").notNull(),
     /** readable and duplicable by the organisation's instructors; only the owner edits */
