@@ -80,7 +80,6 @@ vi.mock("next/navigation", async () => {
 const root = fileURLToPath(new URL("../..", import.meta.url));
 const baseUrl = process.env.E2E_BASE_URL;
 const SESSION_COOKIE = "loopwright_session";
-const PEER = "access-matrix-peer"; // what server.ts puts in x-loopwright-peer
 const signedOut = (actor: Actor) => actor === "anonymous" || actor === "deactivated";
 
 // Built once, by the first suite that runs cells; the registry checks need no database, so
@@ -199,7 +198,10 @@ async function actionCell(entry: ActionEntry, c: ActionCase, actor: Actor) {
   const { fx, sessionId } = await cell(c, actor);
   const form = new FormData();
   for (const [k, v] of Object.entries(c.form(fx))) form.set(k, v);
-  requestContext.reset(sessionId ? { [SESSION_COOKIE]: sessionId } : {}, { "x-loopwright-peer": PEER, host: new URL(baseUrl ?? "http://127.0.0.1").host });
+  // x-loopwright-peer is what server.ts sets from the socket; a peer of its own per cell, so the
+  // per-address limits (sign-in failures, reset requests) count each cell as a separate client
+  const headers = { "x-loopwright-peer": `peer-${fx.unique}`, host: new URL(baseUrl ?? "http://127.0.0.1").host };
+  requestContext.reset(sessionId ? { [SESSION_COOKIE]: sessionId } : {}, headers);
   const action = await loadAction(entry);
 
   const before = await snapshot();
