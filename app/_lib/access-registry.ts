@@ -176,8 +176,8 @@ export const entryKey = (e: RegistryEntry) => (e.kind === "route" ? `${e.method}
 
 // ---- documents for valid calls ----
 
-/** A small drying cabinet (fictional), valid for the engine's enclosure schema. */
-const cabinet = {
+/** A small drying cabinet (fictional), valid for the engine's enclosure schema; the tests' plant too. */
+export const SAMPLE_CABINET = {
   kind: "enclosure",
   volumeM3: 0.3,
   wallAreaM2: 2.8,
@@ -399,7 +399,7 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     module: "app/(app)/bench/actions.ts",
     name: "savePlant",
     rule: "any signed-in user, as the owner",
-    cases: [{ label: "a new plant", allowed: who.signedIn, form: (fx) => ({ payload: json({ name: `Cabinet ${fx.unique}`, description: "", definition: cabinet }) }) }],
+    cases: [{ label: "a new plant", allowed: who.signedIn, form: (fx) => ({ payload: json({ name: `Cabinet ${fx.unique}`, description: "", definition: SAMPLE_CABINET }) }) }],
   },
   {
     kind: "action",
@@ -407,8 +407,8 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     name: "updatePlant",
     rule: "the owner only (a shared plant is read-only to the organisation)",
     cases: [
-      { label: "the shared plant", allowed: who.owner, form: (fx) => ({ payload: json({ plantId: fx.sharedPlantId, name: `Shared cabinet ${fx.unique}`, description: "", definition: cabinet }) }) },
-      { label: "the private plant", allowed: who.owner, form: (fx) => ({ payload: json({ plantId: fx.privatePlantId, name: `Private cabinet ${fx.unique}`, description: "", definition: cabinet }) }) },
+      { label: "the shared plant", allowed: who.owner, form: (fx) => ({ payload: json({ plantId: fx.sharedPlantId, name: `Shared cabinet ${fx.unique}`, description: "", definition: SAMPLE_CABINET }) }) },
+      { label: "the private plant", allowed: who.owner, form: (fx) => ({ payload: json({ plantId: fx.privatePlantId, name: `Private cabinet ${fx.unique}`, description: "", definition: SAMPLE_CABINET }) }) },
     ],
   },
   {

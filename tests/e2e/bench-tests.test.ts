@@ -3,39 +3,22 @@
 // anyway, noise fools the relay and the test stops with that reason; with a PV filter of a quarter
 // of the sensor lag (1 s on the 4 s element; references §16, common practice) the same test
 // completes, and its proposal loads into the controller after confirmation.
-import { createRequire } from "node:module";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { demoPeople } from "@/db/seed";
-import { launchBrowser, newUser, screenshot, signIn } from "./browser";
+import { launchBrowser, openBench, screenshot, seriousAxeFindings } from "./browser";
 
 let browser: Browser;
 let page: Page;
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const user = await newUser(browser);
-  page = user.page;
-  await signIn(page, demoPeople.trainees[7].email);
-  await page.waitForURL("**/dashboard");
-  await page.goto("/bench");
-  await page.getByTestId("pv-readout").filter({ hasText: /\d/ }).waitFor();
+  page = await openBench(browser, demoPeople.trainees[7].email);
 });
 afterAll(async () => {
   await browser?.close();
 });
 
-/** axe-core's serious and critical findings on the page as it is (WCAG 2.1 A/AA rules as axe implements them). */
-async function seriousAxeFindings() {
-  const require = createRequire(import.meta.url);
-  await page.addScriptTag({ path: require.resolve("axe-core/axe.min.js") });
-  const result = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const r = await axe.run(document, { resultTypes: ["violations"] });
-    return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
-  });
-  return result.filter((v) => v.impact === "serious" || v.impact === "critical");
-}
 
 describe("the Bench's relay test", () => {
   it("on the noisy preset: warning, noise abort, PV filter, completed test, proposal applied", async () => {
@@ -76,7 +59,7 @@ describe("the Bench's relay test", () => {
     await expect.poll(async () => Number(await form.getByLabel("Gain Kc").inputValue())).toBe(kc);
     expect(Number(await form.getByLabel("PV filter τf").inputValue())).toBe(1);
     await screenshot(page, "bench-relay-applied");
-    const findings = await seriousAxeFindings();
+    const findings = await seriousAxeFindings(page);
     expect(findings, JSON.stringify(findings, null, 2)).toEqual([]);
   });
 
@@ -96,7 +79,7 @@ describe("the Bench's relay test", () => {
     // the cabinet holds 60 °C at about a quarter of its heater (the plant's derived figures)
     expect(Number((await curve.getByTestId("power-curve-holding").textContent())!.split(/\s/)[0])).toBeGreaterThan(20);
     await screenshot(page, "bench-bump-test");
-    const findings = await seriousAxeFindings();
+    const findings = await seriousAxeFindings(page);
     expect(findings, JSON.stringify(findings, null, 2)).toEqual([]);
   });
 });

@@ -5,13 +5,12 @@
 // (WCAG 2.1 A/AA rules as implemented by axe-core).
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
-import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { demoPeople } from "@/db/seed";
-import { launchBrowser, newUser, screenshot, signIn } from "./browser";
+import { launchBrowser, openBench, screenshot, seriousAxeFindings } from "./browser";
 
 let browser: Browser;
 let page: Page;
@@ -19,12 +18,7 @@ const scratch = mkdtempSync(path.join(tmpdir(), "loopwright-bench-"));
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const user = await newUser(browser);
-  page = user.page;
-  await signIn(page, demoPeople.trainees[6].email);
-  await page.waitForURL("**/dashboard");
-  await page.goto("/bench");
-  await page.getByTestId("pv-readout").filter({ hasText: /\d/ }).waitFor();
+  page = await openBench(browser, demoPeople.trainees[6].email);
 });
 afterAll(async () => {
   await browser?.close();
@@ -114,14 +108,7 @@ describe("the Bench", () => {
   });
 
   it("has no serious or critical accessibility findings (axe-core)", async () => {
-    const require = createRequire(import.meta.url);
-    await page.addScriptTag({ path: require.resolve("axe-core/axe.min.js") });
-    const result = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-      const r = await axe.run(document, { resultTypes: ["violations"] });
-      return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
-    });
-    const serious = result.filter((v) => v.impact === "serious" || v.impact === "critical");
+    const serious = await seriousAxeFindings(page);
     expect(serious, JSON.stringify(serious, null, 2)).toEqual([]);
   });
 });

@@ -1,5 +1,6 @@
 // Browser end-to-end helpers: playwright-core driving Debian's chromium (never a downloaded browser).
 import path from "node:path";
+import { createRequire } from "node:module";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { DEMO_PASSWORD } from "@/db/seed";
 
@@ -50,4 +51,26 @@ export async function serverRenderedFormFields(browser: Browser, as: BrowserCont
   } finally {
     await noScript.close();
   }
+}
+
+/** A demo user signed in with the Bench open and its first readings shown. */
+export async function openBench(browser: Browser, email: string): Promise<Page> {
+  const { page } = await newUser(browser);
+  await signIn(page, email);
+  await page.waitForURL("**/dashboard");
+  await page.goto("/bench");
+  await page.getByTestId("pv-readout").filter({ hasText: /\d/ }).waitFor();
+  return page;
+}
+
+/** axe-core's serious and critical findings on the page as it is (WCAG 2.1 A/AA rules as axe implements them). */
+export async function seriousAxeFindings(page: Page) {
+  const require = createRequire(import.meta.url);
+  await page.addScriptTag({ path: require.resolve("axe-core/axe.min.js") });
+  const result = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+    const r = await axe.run(document, { resultTypes: ["violations"] });
+    return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
+  });
+  return result.filter((v) => v.impact === "serious" || v.impact === "critical");
 }

@@ -33,6 +33,7 @@ import { PLANT_PRESETS } from "@/sim/plant/presets";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 import { randomBytes } from "node:crypto";
 import { uniqueEmail } from "./helpers";
+import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
 
 const db = () => getDb();
 let passwordHash = "";
@@ -56,22 +57,8 @@ beforeAll(async () => {
   outsider = await makeUser(other.id, "Outsider");
 });
 
-// A small drying cabinet of our own (fictional), valid for enclosureParamsSchema.
-const cabinet = () => ({
-  kind: "enclosure" as const,
-  volumeM3: 0.3,
-  wallAreaM2: 2.8,
-  wallUValueWPerM2K: 0.7,
-  innerFilmCoefficientWPerM2K: 10,
-  outerFilmCoefficientWPerM2K: 8,
-  wallHeatCapacityJPerK: 20000,
-  heaterRatingW: 1500,
-  heaterHeatCapacityJPerK: 600,
-  heaterTimeConstantS: 80,
-  inletAirflowM3PerH: 20,
-  ambientC: 19,
-  sensorTimeConstantS: 12,
-});
+// A small drying cabinet of our own (fictional), shared with the access registry; a fresh copy per use.
+const cabinet = () => ({ ...SAMPLE_CABINET });
 
 const plantInput = (name: string) => ({ name, description: "Bay 2 drying cabinet", definition: cabinet() });
 

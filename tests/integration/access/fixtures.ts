@@ -17,6 +17,7 @@ import { getDb } from "@/db/client";
 import { cohortMemberships, cohorts, invitations, organizations, passwordResetTokens, sessions, users, type UserRole } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import ladder from "@/sim/examples/setpoint-ladder.json";
+import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
 
 export const FIXTURE_PASSWORD = "access-matrix-password";
 export const MARKER = "access-matrix";
@@ -39,21 +40,6 @@ export interface MatrixWorld {
   passwordHash: string;
 }
 
-const cabinet = {
-  kind: "enclosure" as const,
-  volumeM3: 0.3,
-  wallAreaM2: 2.8,
-  wallUValueWPerM2K: 0.7,
-  innerFilmCoefficientWPerM2K: 10,
-  outerFilmCoefficientWPerM2K: 8,
-  wallHeatCapacityJPerK: 20000,
-  heaterRatingW: 1500,
-  heaterHeatCapacityJPerK: 600,
-  heaterTimeConstantS: 80,
-  inletAirflowM3PerH: 20,
-  ambientC: 19,
-  sensorTimeConstantS: 12,
-};
 const controller = { kind: "pid" as const, form: "standard" as const, kc: 4, ti: 300, td: 30 };
 const PRESET = "benchtop-curing-cabinet";
 
@@ -105,8 +91,8 @@ export async function buildWorld(): Promise<MatrixWorld> {
   await member(foreignCohort, userIds.foreignTrainee!, "trainee");
 
   const owner: BenchUser = { id: userIds.trainee!, organizationId: demo.id };
-  const privatePlant = await createPlant(owner, { name: `Private cabinet ${uniqueText()}`, description: "", definition: cabinet });
-  const sharedPlant = await createPlant(owner, { name: `Shared cabinet ${uniqueText()}`, description: "", definition: cabinet });
+  const privatePlant = await createPlant(owner, { name: `Private cabinet ${uniqueText()}`, description: "", definition: SAMPLE_CABINET });
+  const sharedPlant = await createPlant(owner, { name: `Shared cabinet ${uniqueText()}`, description: "", definition: SAMPLE_CABINET });
   await setPlantShared(owner, sharedPlant.id, true);
   const tuningSet = await createTuningSet(owner, { plantRef: sharedPlant.ref, name: `PI ${uniqueText()}`, controller });
   const run = await createRun(owner, runInput(sharedPlant.ref));
@@ -188,7 +174,7 @@ export async function makeFresh(world: MatrixWorld, kinds: readonly FreshKind[])
   for (const kind of kinds) {
     switch (kind) {
       case "plantId":
-        made.plantId = (await createPlant(world.owner, { name: `Fresh cabinet ${uniqueText()}`, description: "", definition: cabinet })).id;
+        made.plantId = (await createPlant(world.owner, { name: `Fresh cabinet ${uniqueText()}`, description: "", definition: SAMPLE_CABINET })).id;
         break;
       case "tuningSetId":
         made.tuningSetId = (await createTuningSet(world.owner, { plantRef: `preset:${PRESET}`, name: `PI ${uniqueText()}`, controller })).id;
