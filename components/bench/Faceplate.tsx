@@ -162,7 +162,7 @@ export function Faceplate({ snapshot, unit, highAlarmC, onSetpoint, onMode, onMa
   );
 }
 
-function AlarmChip({ active, label }: { active: boolean; label: string }) {
+export function AlarmChip({ active, label }: { active: boolean; label: string }) {
   return (
     <li
       className={`rounded-full border px-2 py-1 ${active ? "border-alarm bg-alarm text-paper" : "border-rule-strong text-ink-faint"}`}
