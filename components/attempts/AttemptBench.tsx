@@ -82,7 +82,9 @@ type ClaimState =
 type SubmitState = { status: "idle" } | { status: "pending" } | { status: "refused"; error: string } | { status: "accepted"; message?: string };
 
 export function AttemptBench({ launch, submit, onSubmitted }: AttemptBenchProps) {
-  const { drill, seed } = launch;
+  // the run's inputs are fixed for the life of the page: a re-render with an equal launch (a
+  // router.refresh) must not reload the worker and lose the run (a new attempt remounts: key it by attemptId)
+  const [{ drill, seed }] = useState(() => ({ drill: launch.drill, seed: launch.seed }));
   const may = drill.trainee.mayChange;
   const pace = drill.pace;
   const speeds = useMemo(() => offeredSpeeds(drill), [drill]);

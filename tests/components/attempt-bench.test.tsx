@@ -163,12 +163,15 @@ describe("AttemptBench", () => {
 
   it("loads the drill with the reference tuning and the server's seed in the Bench worker", () => {
     const drill = drillWith();
-    render(<AttemptBench launch={launchOf(drill)} submit={noSubmit} />);
+    const { rerender } = render(<AttemptBench launch={launchOf(drill)} submit={noSubmit} />);
     const [d, cfg, seed, actions] = calls("load")[0].args;
     expect(d).toBe(drill);
     expect(cfg).toEqual(controllerConfigSchema.parse(drill.referenceTuning));
     expect(seed).toBe(SEED);
     expect(actions).toEqual([]);
+    // the page re-rendering with an equal launch (a router.refresh) does not restart the run
+    rerender(<AttemptBench launch={launchOf(drillWith())} submit={noSubmit} />);
+    expect(calls("load")).toHaveLength(1);
   });
 
   it("shows a read-only faceplate when the drill does not allow operating the loop, and the entries when it does", () => {
