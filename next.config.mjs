@@ -12,6 +12,8 @@ const nextConfig = {
       // Forged posts from another origin are refused by Next's Origin/Host check; a reverse
       // proxy's public host can be allowed here through the environment.
       allowedOrigins: process.env.APP_ALLOWED_ORIGINS ? process.env.APP_ALLOWED_ORIGINS.split(",") : [],
+      // an attempt submission carries its whole action log (at most 20 000 actions)
+      bodySizeLimit: "4mb",
     },
   },
 };

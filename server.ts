@@ -2,8 +2,10 @@
 // Next's request handler, because sign-in rate limiting needs the real peer address: it is written
 // into a private header here (any inbound copy is dropped), so a client cannot choose its own.
 // With --mail-catcher it also runs the local SMTP catcher; with --mailbox it enables the admins'
-// mailbox page. Both are for local and demo installations.
+// mailbox page. Both are for local and demo installations. With --worker it also runs the queue
+// worker (worker.ts) as a child process of its own, restarted if it exits.
 import nextEnv from "@next/env";
+import { spawn } from "node:child_process";
 import { createServer } from "node:http";
 import next from "next";
 import { ensureLocalDatabase } from "./db/local-postgres";
@@ -31,6 +33,8 @@ async function main() {
   }
   if (args.has("--mailbox")) process.env.MAILBOX_ENABLED = "true";
 
+  if (args.has("--worker")) superviseWorker(root);
+
   const app = next({ dev: false, dir: root, hostname, port });
   await app.prepare();
   const handle = app.getRequestHandler();
@@ -41,6 +45,29 @@ async function main() {
   }).listen(port, hostname, () => {
     console.log(`[app] Loopwright on ${process.env.APP_URL}${process.env.MAILBOX_ENABLED === "true" ? ` (mailbox: ${process.env.APP_URL}/admin/mailbox)` : ""}`);
   });
+}
+
+/** Runs worker.ts in its own process (same Node and loader flags), restarting it after a crash. */
+function superviseWorker(root: string) {
+  let stopping = false;
+  let restarts = 0;
+  const start = () => {
+    const child = spawn(process.execPath, [...process.execArgv, "worker.ts"], { cwd: root, env: process.env, stdio: "inherit" });
+    child.on("exit", (code, signal) => {
+      if (stopping) return;
+      restarts++;
+      const delay = Math.min(30_000, 1000 * restarts);
+      console.error(`[worker] exited (${signal ?? code}); restarting in ${delay / 1000} s`);
+      setTimeout(start, delay);
+    });
+    const stop = () => {
+      stopping = true;
+      child.kill("SIGTERM");
+    };
+    process.once("SIGTERM", () => (stop(), process.exit(0)));
+    process.once("SIGINT", () => (stop(), process.exit(0)));
+  };
+  start();
 }
 
 main().catch((err) => {

@@ -288,3 +288,122 @@ export const drillVersions = pgTable(
 
 export type DrillRow = typeof drills.$inferSelect;
 export type DrillVersionRow = typeof drillVersions.$inferSelect;
+
+// ---- Assignments and attempts (migration 0003_classroom) ----
+// An assignment gives one published drill version to one cohort. An attempt is one trainee's run
+// of it: the server issues its id and seed and counts it at once (an abandoned attempt still
+// counts); the submission carries the inputs (starting controller, action log) and the browser's
+// claimed results; the queue worker replays it and writes the official results. Standings read
+// the summary columns, which only the replay writes.
+
+export const lateRule = pgEnum("late_rule", ["refuse", "accept-marked", "accept-penalty"]);
+export const standingsVisibility = pgEnum("standings_visibility", ["names", "initials", "own-rank"]);
+export const attemptStatus = pgEnum("attempt_status", ["started", "submitted", "verified", "failed"]);
+
+export const assignments = pgTable(
+  "assignments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: organizationRef(),
+    cohortId: uuid("cohort_id")
+      .notNull()
+      .references(() => cohorts.id),
+    drillVersionId: uuid("drill_version_id")
+      .notNull()
+      .references(() => drillVersions.id),
+    title: text("title").notNull(),
+    opensAt: timestamp("opens_at", { withTimezone: true, mode: "date" }).notNull(),
+    dueAt: timestamp("due_at", { withTimezone: true, mode: "date" }).notNull(),
+    attemptLimit: integer("attempt_limit").notNull(),
+    lateRule: lateRule("late_rule").notNull().default("accept-marked"),
+    /** accept-penalty: the score is multiplied by (1 − latePenaltyPercent/100) */
+    latePenaltyPercent: integer("late_penalty_percent").notNull().default(0),
+    visibility: standingsVisibility("visibility").notNull().default("initials"),
+    createdBy: ownerRef(),
+    createdAt: createdAt(),
+    /** set once the "assignment open" e-mail has gone to the roster (idempotent notice) */
+    openNoticeSentAt: timestamp("open_notice_sent_at", { withTimezone: true, mode: "date" }),
+    archivedAt: timestamp("archived_at", { withTimezone: true, mode: "date" }),
+  },
+  (t) => [
+    index("assignments_cohort_idx").on(t.cohortId, t.dueAt),
+    check("assignments_due_after_open", sql`${t.dueAt} > ${t.opensAt}`),
+    check("assignments_limit_range", sql`${t.attemptLimit} between 1 and 50`),
+    check("assignments_penalty_range", sql`${t.latePenaltyPercent} between 0 and 100`),
+  ],
+);
+
+export const attempts = pgTable(
+  "attempts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    assignmentId: uuid("assignment_id")
+      .notNull()
+      .references(() => assignments.id),
+    traineeId: text("trainee_id")
+      .notNull()
+      .references(() => users.id),
+    drillVersionId: uuid("drill_version_id")
+      .notNull()
+      .references(() => drillVersions.id),
+    /** 1, 2, … per trainee and assignment, counted when started */
+    number: integer("number").notNull(),
+    seed: bigint("seed", { mode: "number" }).notNull(),
+    status: attemptStatus("status").notNull().default("started"),
+    startedAt: createdAt(),
+    submittedAt: timestamp("submitted_at", { withTimezone: true, mode: "date" }),
+    /** the key of the submission that was accepted; a retry with the same key is answered again */
+    submissionKey: uuid("submission_key"),
+    late: boolean("late").notNull().default(false),
+    controller: jsonb("controller").$type<Record<string, unknown>>(),
+    actionLog: jsonb("action_log").$type<unknown[]>(),
+    claimedScore: doublePrecision("claimed_score"),
+    claimedFingerprint: text("claimed_fingerprint"),
+    claimedResults: jsonb("claimed_results").$type<Record<string, unknown>>(),
+    // ---- official, written only by the replay ----
+    verifiedAt: timestamp("verified_at", { withTimezone: true, mode: "date" }),
+    engineVersion: text("engine_version"),
+    officialFingerprint: text("official_fingerprint"),
+    officialResults: jsonb("official_results").$type<Record<string, unknown>>(),
+    /** AttemptScore and per-window feedback (sim/drill/score.ts, feedback.ts) */
+    officialScoreDetail: jsonb("official_score_detail").$type<Record<string, unknown>>(),
+    score: doublePrecision("score"),
+    rawScore: doublePrecision("raw_score"),
+    settlingTimeS: doublePrecision("settling_time_s"),
+    overshootC: doublePrecision("overshoot_c"),
+    iae: doublePrecision("iae"),
+    recoveryTimeS: doublePrecision("recovery_time_s"),
+    energyKWh: doublePrecision("energy_kwh"),
+    safetyTrips: integer("safety_trips"),
+    violations: text("violations").array(),
+    flagged: boolean("flagged").notNull().default(false),
+    flagReason: text("flag_reason"),
+    failureReason: text("failure_reason"),
+    verifyRuns: integer("verify_runs").notNull().default(0),
+  },
+  (t) => [
+    uniqueIndex("attempts_assignment_trainee_number_unique").on(t.assignmentId, t.traineeId, t.number),
+    index("attempts_standings_idx").on(t.assignmentId, t.status, t.score),
+    index("attempts_trainee_idx").on(t.traineeId, t.assignmentId),
+    check("attempts_number_positive", sql`${t.number} >= 1`),
+  ],
+);
+
+export const attemptFeedback = pgTable(
+  "attempt_feedback",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    attemptId: uuid("attempt_id")
+      .notNull()
+      .references(() => attempts.id),
+    authorId: text("author_id")
+      .notNull()
+      .references(() => users.id),
+    body: text("body").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("attempt_feedback_attempt_idx").on(t.attemptId, t.createdAt)],
+);
+
+export type AssignmentRow = typeof assignments.$inferSelect;
+export type AttemptRow = typeof attempts.$inferSelect;

@@ -79,7 +79,8 @@ async function main() {
     const [port, smtpPort] = [await freePort(), await freePort()];
     const baseUrl = `http://127.0.0.1:${port}`;
     Object.assign(env, { PORT: String(port), SMTP_PORT: String(smtpPort), SMTP_HOST: "127.0.0.1", APP_URL: baseUrl, MAILBOX_ENABLED: "true" });
-    app = spawn("npx", ["tsx", "server.ts", "--mail-catcher", "--mailbox"], { stdio: ["ignore", "inherit", "inherit"], env, detached: true });
+    // --worker: the queue worker (attempt replays, notices) runs beside the app, as under npm start
+    app = spawn("npx", ["tsx", "server.ts", "--mail-catcher", "--mailbox", "--worker"], { stdio: ["ignore", "inherit", "inherit"], env, detached: true });
     await waitForHttp(`${baseUrl}/sign-in`, app);
 
     exitCode = await run("npx", ["vitest", "run", ...process.argv.slice(2)], { ...env, E2E_BASE_URL: baseUrl, CHROMIUM_PATH: CHROMIUM });

@@ -9,6 +9,7 @@
 // Nothing in the app imports this file. Adding a route or an action means adding one entry here:
 // say who may use it and give a valid call built from the fixture ids (MatrixFixtures); when the
 // call consumes something (deletes a row, spends a token), ask for a fresh one with `fresh`.
+import { randomUUID } from "node:crypto";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 
 // ---- who ----
@@ -49,6 +50,10 @@ export const who = {
   drillOwner: ["instructor"],
   /** who views a private drill of cohort A's instructor: the owner and the organisation's admins */
   privateDrillViewers: ["admin", "instructor"],
+  /** cohort A's members and its organisation's admins */
+  cohortMembers: ["admin", "instructor", "trainee"],
+  /** who reads the owner's attempt: the owner, cohort A's instructors, the organisation's admins */
+  attemptReaders: ["admin", "instructor", "trainee"],
   /** who views a shared drill: also the organisation's other instructors */
   sharedDrillViewers: ["admin", "instructor", "otherInstructor"],
   nobody: [],
@@ -80,6 +85,8 @@ export interface FreshIds {
   drillId: string;
   /** a drill of the drill owner, shared within the organisation, v1 published and no draft */
   publishedDrillId: string;
+  /** a started (not submitted) attempt of the owner (cohort A's trainee) on the fixture assignment */
+  startedAttemptId: string;
 }
 export type FreshKind = keyof FreshIds;
 
@@ -106,6 +113,10 @@ export interface MatrixFixtures {
   archivedDrillId: string;
   /** the user id of the second organisation's instructor */
   foreignInstructorId: string;
+  /** cohort A's assignment of the shared drill's published v1: open, due in a week, 50 attempts */
+  assignmentId: string;
+  /** the owner's (cohort A trainee's) verified attempt of that assignment */
+  verifiedAttemptId: string;
   presetId: string;
   /** the password of every fixture user (the acting user's current password) */
   password: string;
@@ -197,6 +208,9 @@ const json = (value: unknown) => JSON.stringify(value);
 const plantRef = (id: string) => `plant:${id}`;
 const q = encodeURIComponent;
 const toNewDrill = /^\/drills\/[0-9a-f-]{36}$/;
+const toAttempt = /^\/attempts\/[0-9a-f-]{36}$/;
+/** A valid submission of an attempt (the replay, not this claim, decides its score). */
+const submission = (attemptId: string) => json({ attemptId, submissionKey: randomUUID(), controller, actionLog: [], claimed: { score: 50, results: {} } });
 
 export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
   // ---------------- route handlers ----------------
@@ -567,5 +581,73 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     name: "archiveDrill",
     rule: "the drill's owner only",
     cases: [{ label: "a shared drill", allowed: who.drillOwner, fresh: ["drillId"], form: (fx) => ({ drillId: fx.fresh.drillId, archived: "true" }) }],
+  },
+
+  // ---------------- classroom: assignments, attempts, standings ----------------
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/assignments/[assignmentId]/standings",
+    rule: "members of the assignment's cohort and its organisation's admins; trainees see what its visibility allows",
+    cases: [
+      { label: "cohort A's assignment", allowed: who.cohortMembers, request: (fx) => ({ url: `/api/assignments/${fx.assignmentId}/standings` }) },
+      { label: "all attempts", allowed: who.cohortMembers, request: (fx) => ({ url: `/api/assignments/${fx.assignmentId}/standings?view=all` }) },
+      { label: "not an assignment id", allowed: who.nobody, request: () => ({ url: "/api/assignments/not-a-uuid/standings" }) },
+    ],
+  },
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/assignments/[assignmentId]/standings/csv",
+    rule: "instructors of the assignment's cohort and its organisation's admins",
+    cases: [{ label: "cohort A's assignment", allowed: who.cohortStaff, request: (fx) => ({ url: `/api/assignments/${fx.assignmentId}/standings/csv?view=all` }) }],
+  },
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/attempts/[attemptId]",
+    rule: "the attempt's trainee, instructors of its cohort, its organisation's admins; 404 otherwise",
+    cases: [{ label: "the owner's verified attempt", allowed: who.attemptReaders, marker: (fx) => fx.verifiedAttemptId, request: (fx) => ({ url: `/api/attempts/${fx.verifiedAttemptId}` }) }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/cohorts/[cohortId]/actions.ts",
+    name: "createAssignment",
+    rule: "instructors of the cohort and admins of its organisation, for a published version they may view",
+    cases: [
+      {
+        label: "the shared drill's v1 to cohort A",
+        allowed: who.cohortStaff,
+        form: (fx) => ({ cohortId: fx.cohortId, drillVersion: `${fx.sharedDrillId}:1`, title: `Assignment ${fx.unique}`, opensAt: "2026-01-05T09:00", dueAt: "2026-01-12T17:00", attemptLimit: "3", lateRule: "accept-marked", latePenaltyPercent: "0", visibility: "initials" }),
+      },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/assignments/actions.ts",
+    name: "startAttempt",
+    rule: "trainee members of the assignment's cohort (the server issues the id and seed and counts it)",
+    cases: [{ label: "cohort A's assignment", allowed: who.owner, form: (fx) => ({ assignmentId: fx.assignmentId }), redirectsTo: toAttempt }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/assignments/actions.ts",
+    name: "setStandingsVisibility",
+    rule: "instructors of the assignment's cohort and its organisation's admins",
+    cases: [{ label: "initials", allowed: who.cohortStaff, form: (fx) => ({ assignmentId: fx.assignmentId, visibility: "initials" }), writes: false }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/attempts/[attemptId]/actions.ts",
+    name: "submitAttempt",
+    rule: "the attempt's trainee only, once (a retry with the same key is answered again)",
+    cases: [{ label: "the owner's started attempt", allowed: who.owner, fresh: ["startedAttemptId"], form: (fx) => ({ payload: submission(fx.fresh.startedAttemptId) }) }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/attempts/[attemptId]/actions.ts",
+    name: "leaveFeedback",
+    rule: "instructors of the attempt's cohort and its organisation's admins",
+    cases: [{ label: "the owner's verified attempt", allowed: who.cohortStaff, form: (fx) => ({ attemptId: fx.verifiedAttemptId, body: `Good recovery after the door opened. ${fx.unique}` }) }],
   },
 ];

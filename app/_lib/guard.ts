@@ -5,7 +5,7 @@
 import { and, eq, isNull } from "drizzle-orm";
 import { redirect } from "next/navigation";
 import { getDb } from "@/db/client";
-import { cohortMemberships, cohorts, type UserRole } from "@/db/schema";
+import { assignments, cohortMemberships, cohorts, type UserRole } from "@/db/schema";
 import { currentSession, type SignedInUser } from "./auth";
 
 export interface AccessPolicy {
@@ -14,6 +14,8 @@ export interface AccessPolicy {
   cohortId?: string;
   /** with cohortId: "instructor" requires an instructor membership; "member" any membership */
   cohortRole?: "instructor" | "member";
+  /** like cohortId, for the cohort this assignment belongs to */
+  assignmentId?: string;
 }
 
 export class AccessDenied extends Error {
@@ -38,6 +40,16 @@ export async function cohortAccess(user: SignedInUser, cohortId: string, need: "
   return need === "member" || membership.role === "instructor";
 }
 
+/** The cohort of an assignment of the user's organisation, or null. */
+export async function assignmentCohortId(user: SignedInUser, assignmentId: string): Promise<string | null> {
+  if (!uuidPattern.test(assignmentId)) return null;
+  const [a] = await getDb()
+    .select({ cohortId: assignments.cohortId })
+    .from(assignments)
+    .where(and(eq(assignments.id, assignmentId), eq(assignments.organizationId, user.organizationId)));
+  return a?.cohortId ?? null;
+}
+
 /** Checks the policy for this request's user; throws AccessDenied. */
 export async function authorize(policy: AccessPolicy = {}): Promise<SignedInUser> {
   const { user } = await currentSession();
@@ -45,6 +57,10 @@ export async function authorize(policy: AccessPolicy = {}): Promise<SignedInUser
   if (policy.roles && !policy.roles.includes(user.role)) throw new AccessDenied("forbidden");
   if (policy.cohortId !== undefined && !(await cohortAccess(user, policy.cohortId, policy.cohortRole ?? "member"))) {
     throw new AccessDenied("forbidden");
+  }
+  if (policy.assignmentId !== undefined) {
+    const cohortId = await assignmentCohortId(user, policy.assignmentId);
+    if (!cohortId || !(await cohortAccess(user, cohortId, policy.cohortRole ?? "member"))) throw new AccessDenied("forbidden");
   }
   return user;
 }

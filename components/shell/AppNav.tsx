@@ -5,6 +5,7 @@ import { Wordmark } from "./Wordmark";
 const sections = [
   { href: "/bench", label: "Bench" },
   { href: "/drills", label: "Drills" },
+  { href: "/assignments", label: "Assignments" },
   { href: "/cohorts", label: "Cohorts" },
   { href: "/twins", label: "Twins" },
   { href: "/records", label: "Records" },

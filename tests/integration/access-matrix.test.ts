@@ -36,6 +36,9 @@
 // that use something up (a delete, a link token) get a fresh one per cell. Least privilege and
 // "a denied request changes nothing" are common practice (OWASP Authorization Cheat Sheet, from
 // memory); who may do what is the app's own rule, stated per entry in the registry.
+// A submission queues its replay; in this file it goes to a queue no worker serves, so no replay
+// writes to the fixtures while a refused call's "nothing changed" is being checked.
+process.env.LOOPWRIGHT_QUEUE_PREFIX = "access-matrix-";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { beforeAll, describe, expect, it, vi } from "vitest";

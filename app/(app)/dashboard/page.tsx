@@ -4,6 +4,8 @@ import type { SignedInUser } from "@/app/_lib/auth";
 import { guardPage } from "@/app/_lib/guard";
 import { cohortsFor, organizationName, organizationUsers, roster } from "@/db/queries";
 import { CohortRoster } from "@/components/cohorts/CohortRoster";
+import { AssignmentList } from "@/components/assignments/AssignmentList";
+import { assignmentsFor, type AssignmentListItem } from "@/app/_lib/classroom/attempts";
 import { inviteTrainee, removeTrainee } from "../cohorts/[cohortId]/actions";
 
 export const metadata: Metadata = { title: "Dashboard" };
@@ -23,7 +25,7 @@ export default async function DashboardPage({ searchParams }: { searchParams: Pr
       </header>
       {user.role === "admin" ? <AdminPanel user={user} cohorts={cohorts} /> : null}
       {user.role === "instructor" ? <InstructorPanel cohorts={cohorts} /> : null}
-      {user.role === "trainee" ? <TraineePanel cohorts={cohorts} /> : null}
+      {user.role === "trainee" ? <TraineePanel cohorts={cohorts} assigned={await assignmentsFor(user)} /> : null}
     </div>
   );
 }
@@ -82,16 +84,16 @@ async function InstructorPanel({ cohorts }: { cohorts: CohortRow[] }) {
   );
 }
 
-function TraineePanel({ cohorts }: { cohorts: CohortRow[] }) {
+function TraineePanel({ cohorts, assigned }: { cohorts: CohortRow[]; assigned: AssignmentListItem[] }) {
   return (
     <>
       <section>
         <h2 className="mb-2 text-sm font-semibold">Your cohorts</h2>
         {cohorts.length ? <CohortList cohorts={cohorts} /> : <p className="text-sm text-ink-soft">You are not in a cohort yet.</p>}
       </section>
-      <section className="rounded-sm border border-rule bg-paper-raised p-5 text-sm text-ink-soft">
-        <h2 className="mb-1 text-sm font-semibold text-ink">Assigned drills</h2>
-        <p>None assigned yet. When your instructor opens a drill for your cohort it is listed here with its due date and attempts left.</p>
+      <section aria-label="Assigned drills" className="rounded-sm border border-rule bg-paper-raised p-5">
+        <h2 className="mb-3 text-sm font-semibold">Assigned drills</h2>
+        <AssignmentList items={assigned} audience="trainee" />
       </section>
     </>
   );

@@ -6,15 +6,16 @@
 // made here carries the text "access-matrix" (names, e-mail addresses) or one of the fixture ids,
 // which is how the database digest (db-digest.ts) finds the rows that belong to the matrix while
 // other test files work in the same database.
-import { randomBytes } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { randomBytes, randomUUID } from "node:crypto";
+import { and, eq } from "drizzle-orm";
 import type { Actor, FreshIds, FreshKind, MatrixFixtures } from "@/app/_lib/access-registry";
 import { createPlant, createRun, createTuningSet, setPlantShared, type BenchUser } from "@/app/_lib/bench-store";
 import { archiveDrill, createDrill, newDraftFromPublished, publishDraft, setDrillShared, type DrillActor } from "@/app/_lib/drills";
 import { hashPassword } from "@/app/_lib/password";
 import { hashToken, newLinkToken, newUserId } from "@/app/_lib/tokens";
 import { getDb } from "@/db/client";
-import { cohortMemberships, cohorts, invitations, organizations, passwordResetTokens, sessions, users, type UserRole } from "@/db/schema";
+import { assignments, attempts, cohortMemberships, cohorts, drillVersions, invitations, organizations, passwordResetTokens, sessions, users, type UserRole } from "@/db/schema";
+import { startAttempt } from "@/app/_lib/classroom/attempts";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
@@ -105,6 +106,47 @@ export async function buildWorld(): Promise<MatrixWorld> {
   await archiveDrill(drillOwner, archivedDrill, true);
   ownIds.push(privateDrill.id, sharedDrill, archivedDrill);
 
+  // cohort A's assignment of the shared drill's published v1, and a verified attempt of the owner
+  const [v1] = await db().select({ id: drillVersions.id }).from(drillVersions).where(and(eq(drillVersions.drillId, sharedDrill), eq(drillVersions.version, 1)));
+  const [assignment] = await db()
+    .insert(assignments)
+    .values({
+      organizationId: demo.id,
+      cohortId: cohortA,
+      drillVersionId: v1.id,
+      title: `Assignment ${uniqueText()}`,
+      opensAt: new Date(Date.now() - 3_600_000),
+      dueAt: new Date(Date.now() + 7 * 86_400_000),
+      attemptLimit: 50,
+      createdBy: userIds.instructor!,
+      openNoticeSentAt: new Date(),
+    })
+    .returning();
+  const [verified] = await db()
+    .insert(attempts)
+    .values({
+      assignmentId: assignment.id,
+      traineeId: userIds.trainee!,
+      drillVersionId: v1.id,
+      number: 1,
+      seed: 1,
+      status: "verified",
+      submittedAt: new Date(),
+      verifiedAt: new Date(),
+      submissionKey: randomUUID(),
+      controller,
+      actionLog: [],
+      engineVersion: "1.0.0",
+      officialFingerprint: "0123456789abcdef",
+      score: 50,
+      rawScore: 50,
+      iae: 100,
+      energyKWh: 0.5,
+      safetyTrips: 0,
+    })
+    .returning();
+  ownIds.push(assignment.id, verified.id);
+
   return {
     fixtures: {
       cohortId: cohortA,
@@ -118,6 +160,8 @@ export async function buildWorld(): Promise<MatrixWorld> {
       sharedDrillId: sharedDrill,
       archivedDrillId: archivedDrill,
       foreignInstructorId: userIds.foreignInstructor!,
+      assignmentId: assignment.id,
+      verifiedAttemptId: verified.id,
       presetId: PRESET,
       password: FIXTURE_PASSWORD,
     },
@@ -164,6 +208,7 @@ const FRESH_KINDS: readonly FreshKind[] = [
   "signInEmail",
   "drillId",
   "publishedDrillId",
+  "startedAttemptId",
 ];
 
 /** Makes the fresh things a case asks for; reading one it did not ask for throws. */
@@ -228,6 +273,9 @@ export async function makeFresh(world: MatrixWorld, kinds: readonly FreshKind[])
         break;
       case "publishedDrillId":
         made.publishedDrillId = await sharedDrillWith(world.drillOwner, "published v1");
+        break;
+      case "startedAttemptId":
+        made.startedAttemptId = (await startAttempt({ id: world.owner.id, organizationId: world.demoOrgId, role: "trainee" }, world.fixtures.assignmentId)).attemptId;
         break;
       default: {
         const never: never = kind;

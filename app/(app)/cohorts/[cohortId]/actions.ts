@@ -3,6 +3,7 @@ import { and, eq, isNull } from "drizzle-orm";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { inviteByEmail } from "@/app/_lib/accounts";
+import { createAssignment as assign, createAssignmentSchema } from "@/app/_lib/classroom/assignments";
 import { ActionRefused, defineAction } from "@/app/_lib/action";
 import { emailField, uuidField } from "@/app/_lib/fields";
 import { getDb } from "@/db/client";
@@ -36,5 +37,16 @@ export const removeTrainee = defineAction(
     if (removed.length === 0) throw new ActionRefused("That trainee is not on this roster.");
     revalidatePath(`/cohorts/${cohortId}`);
     return { ok: true, message: "Trainee removed from the roster. Their records are kept." };
+  },
+);
+
+/** Instructors of the cohort (and admins) assign a published drill version to it. */
+export const createAssignment = defineAction(
+  createAssignmentSchema,
+  ({ cohortId }) => ({ roles: ["instructor", "admin"], cohortId, cohortRole: "instructor" }),
+  async (input, user) => {
+    const { opensNow } = await assign(user!, input);
+    revalidatePath(`/cohorts/${input.cohortId}`);
+    return { ok: true, message: opensNow ? "Assigned. The trainees are being e-mailed that it is open." : "Assigned. The trainees will be e-mailed when it opens." };
   },
 );

@@ -1,0 +1,126 @@
+// Standings of an assignment: verified attempts of the cohort's current trainees (a trainee
+// removed from the roster keeps their attempts, hidden here), best per trainee by default (highest
+// score, the earlier submission on a tie) or every attempt. Staff see names and flags; trainees
+// see what the assignment's visibility allows: full names, initials, or only their own rank.
+import { sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import type { SignedInUser } from "../auth";
+import type { StandingsResponse, StandingsRow, StandingsVisibility } from "./contracts";
+
+type Viewer = Pick<SignedInUser, "id">;
+
+export function initialsOf(name: string): string {
+  const parts = name.trim().split(/\s+/).filter(Boolean);
+  return parts.map((p) => p[0]!.toUpperCase() + ".").join(" ") || "?";
+}
+
+type RawRow = {
+  attempt_id: string;
+  trainee_id: string;
+  display_name: string;
+  number: number;
+  used: number;
+  submitted_at: Date;
+  late: boolean;
+  flagged: boolean;
+  score: number;
+  raw_score: number | null;
+  settling_time_s: number | null;
+  overshoot_c: number | null;
+  iae: number | null;
+  recovery_time_s: number | null;
+  energy_kwh: number | null;
+  safety_trips: number | null;
+};
+
+export async function standings(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<StandingsResponse | null> {
+  const db = getDb();
+  const [a] = await db.execute<{ id: string; title: string; visibility: StandingsVisibility; due_at: Date; attempt_limit: number; time_zone: string }>(
+    sql`select a.id, a.title, a.visibility, a.due_at, a.attempt_limit, c.time_zone from assignments a join cohorts c on c.id = a.cohort_id where a.id = ${assignmentId}`,
+  );
+  if (!a) return null;
+  // current trainees only; attempts used counts every started attempt
+  const rows = await db.execute<RawRow>(sql`
+    with members as (
+      select m.user_id from cohort_memberships m join assignments a on a.cohort_id = m.cohort_id
+      where a.id = ${assignmentId} and m.role = 'trainee' and m.removed_at is null
+    ),
+    used as (
+      select trainee_id, count(*)::int as used from attempts where assignment_id = ${assignmentId} group by trainee_id
+    ),
+    verified as (
+      select t.* from attempts t join members m on m.user_id = t.trainee_id
+      where t.assignment_id = ${assignmentId} and t.status = 'verified'
+    ),
+    chosen as (
+      ${view === "best" ? sql`select distinct on (trainee_id) * from verified order by trainee_id, score desc, submitted_at asc` : sql`select * from verified`}
+    )
+    select c.id as attempt_id, c.trainee_id, u.display_name, c.number, coalesce(used.used, 0) as used, c.submitted_at, c.late, c.flagged,
+           c.score, c.raw_score, c.settling_time_s, c.overshoot_c, c.iae, c.recovery_time_s, c.energy_kwh, c.safety_trips
+    from chosen c join users u on u.id = c.trainee_id left join used on used.trainee_id = c.trainee_id
+    order by c.score desc, c.submitted_at asc
+  `);
+  const [{ verifying }] = await db.execute<{ verifying: number }>(
+    sql`select count(*)::int as verifying from attempts t join cohort_memberships m on m.user_id = t.trainee_id join assignments a on a.id = t.assignment_id and a.cohort_id = m.cohort_id
+        where t.assignment_id = ${assignmentId} and t.status = 'submitted' and m.removed_at is null`,
+  );
+  const visibility = a.visibility;
+  const out: StandingsRow[] = [];
+  let rank = 0;
+  let prevScore: number | null = null;
+  rows.forEach((r, i) => {
+    // standard competition ranking: equal scores share a rank
+    if (prevScore === null || r.score !== prevScore) rank = i + 1;
+    prevScore = r.score;
+    const isViewer = r.trainee_id === viewer.id;
+    if (!staff && visibility === "own-rank" && !isViewer) return;
+    out.push({
+      rank,
+      attemptId: staff || isViewer ? r.attempt_id : null,
+      traineeLabel: staff || visibility === "names" || isViewer ? r.display_name : initialsOf(r.display_name),
+      isViewer,
+      attemptNumber: r.number,
+      attemptsUsed: Number(r.used),
+      submittedAt: new Date(r.submitted_at).toISOString(),
+      late: r.late,
+      flagged: staff ? r.flagged : false,
+      summary: {
+        score: r.score,
+        rawScore: r.raw_score ?? r.score,
+        settlingTimeS: r.settling_time_s,
+        overshootC: r.overshoot_c,
+        iae: r.iae ?? 0,
+        recoveryTimeS: r.recovery_time_s,
+        energyKWh: r.energy_kwh ?? 0,
+        safetyTrips: r.safety_trips ?? 0,
+      },
+    });
+  });
+  const rankedTrainees = view === "best" ? rows.length : new Set(rows.map((r) => r.trainee_id)).size;
+  return {
+    assignment: { id: a.id, title: a.title, visibility, dueAt: new Date(a.due_at).toISOString(), attemptLimit: a.attempt_limit, timeZone: a.time_zone },
+    viewer: { staff },
+    view,
+    rankedTrainees,
+    verifying: Number(verifying),
+    rows: out,
+    generatedAt: new Date().toISOString(),
+  };
+}
+
+const csvCell = (v: string | number | boolean | null) => {
+  if (v === null) return "";
+  const s = String(v);
+  // quote when needed; a leading = + - @ is prefixed so a spreadsheet does not run it as a formula (OWASP CSV injection, from memory)
+  const safe = /^[=+\-@]/.test(s) && typeof v === "string" ? `'${s}` : s;
+  return /[",\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
+};
+
+/** The staff's CSV export: one row per standings row, SI units in the header. */
+export function standingsCsv(s: StandingsResponse): string {
+  const header = ["rank", "trainee", "attempt", "attempts_used", "submitted_utc", "late", "flagged", "score", "raw_score", "settling_time_s", "overshoot_c", "iae_c_s", "recovery_time_s", "energy_kwh", "safety_trips"];
+  const lines = s.rows.map((r) =>
+    [r.rank, r.traineeLabel, r.attemptNumber, r.attemptsUsed, r.submittedAt, r.late, r.flagged, r.summary.score, r.summary.rawScore, r.summary.settlingTimeS, r.summary.overshootC, r.summary.iae, r.summary.recoveryTimeS, r.summary.energyKWh, r.summary.safetyTrips].map(csvCell).join(","),
+  );
+  return [header.join(","), ...lines].join("\r\n") + "\r\n";
+}

@@ -1,0 +1,17 @@
+import { guardRoute } from "@/app/_lib/guard";
+import { standings, standingsCsv } from "@/app/_lib/classroom/standings";
+
+// GET /api/assignments/:assignmentId/standings/csv?view=best|all — the standings as CSV, for the
+// cohort's instructors and the organisation's admins.
+export async function GET(request: Request, { params }: { params: Promise<{ assignmentId: string }> }) {
+  const { assignmentId } = await params;
+  const user = await guardRoute({ roles: ["instructor", "admin"], assignmentId, cohortRole: "instructor" });
+  if (user instanceof Response) return user;
+  const view = new URL(request.url).searchParams.get("view") === "all" ? "all" : "best";
+  const body = await standings(user, true, assignmentId, view);
+  if (!body) return Response.json({ error: "No such assignment." }, { status: 404 });
+  const name = `standings-${body.assignment.title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "assignment"}-${view}.csv`;
+  return new Response(standingsCsv(body), {
+    headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${name}"`, "cache-control": "no-store" },
+  });
+}

@@ -1,0 +1,23 @@
+"use client";
+// A submitted attempt: "verifying" until the worker's replay lands (polled through the attempt's
+// route handler with SWR), then the official result, feedback per window and the review.
+import type { ReactNode } from "react";
+import useSWR from "swr";
+import type { AttemptDetail } from "@/app/_lib/classroom/contracts";
+import { AttemptReview } from "./AttemptReview";
+
+const fetcher = async (url: string): Promise<AttemptDetail> => {
+  const r = await fetch(url, { cache: "no-store" });
+  if (!r.ok) throw new Error(`the attempt could not be loaded (${r.status})`);
+  return r.json();
+};
+
+export function AttemptOutcome({ initial, compareWith, compareOptions, feedbackForm }: { initial: AttemptDetail; compareWith: AttemptDetail | null; compareOptions: { id: string; label: string }[]; feedbackForm: ReactNode }) {
+  const { data } = useSWR(`/api/attempts/${initial.id}`, fetcher, {
+    fallbackData: initial,
+    refreshInterval: (d) => (d && d.status === "verifying" ? 1500 : 0),
+    revalidateOnFocus: true,
+  });
+  const attempt = data ?? initial;
+  return <AttemptReview attempt={attempt} compareWith={compareWith} compareOptions={compareOptions} feedbackForm={feedbackForm} />;
+}
