@@ -9,3 +9,7 @@ export * from "./permissions";
 export * from "./resolve";
 export * from "./run-drill";
 export * from "./json-schema";
+export * from "./summary";
+export * from "./feedback";
+export * from "./claim-check";
+export * from "./rubric";

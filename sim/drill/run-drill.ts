@@ -12,7 +12,9 @@ import type { StampedAction } from "./actions";
 import type { Trace } from "./trace";
 import { computeRunResults, type RunResults } from "./results";
 import { controllerViolations } from "./permissions";
-import { noiseSigmaC } from "./resolve";
+import { noiseSigmaC, resolvePlant } from "./resolve";
+import { expandTimeline } from "./timeline";
+import { SAME_INSTANT_S } from "../actuator/heater-drive";
 import { scoreAttempt, type AttemptScore } from "./score";
 
 export interface RunDrillOptions {
@@ -76,14 +78,45 @@ function energyKWh(trace: Trace, ts: number): number {
   return e / 3.6e6;
 }
 
-/** Rule violations of the starting configuration, of every tuning change in the log, and of operator actions the drill does not allow. */
+/**
+ * Rule violations of the starting configuration, of every tuning change in the log, and of
+ * operator actions the drill does not allow. Method: the drill's own rules (schema.ts trainee):
+ * - mode and manual-output actions are allowed when operating the loop is, and also when the drill
+ *   allows a relay or bump test (sim/worker/bench-tests.ts takes the loop to manual and drives OUT
+ *   through exactly those actions);
+ * - setpoint actions need `operation`, except one that puts the SP back to the value it had when the
+ *   loop last went to manual (the bump test's hand-back with SP tracking), when tests are allowed.
+ * Results score against the drill's scripted SP when operation is not allowed (results.ts), so
+ * hand-operating cannot game the setpoint.
+ */
 function allViolations(drill: Drill, cfg: ControllerConfig, actions: readonly StampedAction[]): string[] {
   const found = new Set(controllerViolations(drill, cfg));
-  for (const a of actions) {
+  const t = drill.trainee;
+  const testsAllowed = t.relayTestAllowed || t.bumpTestAllowed;
+  const modeAndOutputOk = t.mayChange.operation || testsAllowed;
+  // the SP the drill prescribes at a sample (its initial SP and scripted steps and ramps)
+  const ts = cfg.sampleTimeS;
+  const scripted = expandTimeline(drill.events, resolvePlant(drill), ts).filter((c) => c.change.kind === "setpoint");
+  const scriptedSpAt = (sample: number): number => {
+    let sp = drill.initialState.setpointC;
+    for (const c of scripted) {
+      if (c.timeS > sample * ts + SAME_INSTANT_S) continue;
+      if (c.change.kind === "setpoint") sp = c.change.setpointC;
+    }
+    return sp;
+  };
+  let operatorSp: number | null = null; // an SP set by hand (itself reported when not allowed)
+  let spWhenManual: number | null = null;
+  for (const a of [...actions].sort((x, y) => x.sample - y.sample)) {
     if (a.type === "tuning") {
       for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) found.add(v);
-    } else if ((a.type === "setpoint" || a.type === "mode" || a.type === "manual-output") && !drill.trainee.mayChange.operation) {
-      found.add(`${a.type} (operating the loop is not allowed in this drill)`);
+    } else if (a.type === "mode" || a.type === "manual-output") {
+      if (a.type === "mode" && a.mode === "manual") spWhenManual = operatorSp ?? scriptedSpAt(a.sample);
+      if (!modeAndOutputOk) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
+    } else if (a.type === "setpoint") {
+      const restore: boolean = testsAllowed && spWhenManual !== null && Math.abs(a.setpointC - spWhenManual) <= 1e-9;
+      if (!t.mayChange.operation && !restore) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
+      operatorSp = restore ? null : a.setpointC;
     }
   }
   return [...found];

@@ -36,42 +36,13 @@ export type AttemptSubmission = z.input<typeof attemptSubmissionSchema>;
 
 export type AttemptStatus = "started" | "verifying" | "verified" | "failed";
 
-/** The measures standings rank on, from the official (replayed) results. */
-export interface AttemptSummary {
-  /** 0–100, higher is better, after the late rule */
-  score: number;
-  /** the engine's score before any late penalty */
-  rawScore: number;
-  /** longest settling time over the setpoint windows, s (null: a window never settled, or none) */
-  settlingTimeS: number | null;
-  /** largest overshoot over the setpoint windows, °C */
-  overshootC: number | null;
-  /** IAE of the whole run on the true temperature, °C·s */
-  iae: number;
-  /** longest recovery time over the disturbance windows, s (null: never recovered, or none) */
-  recoveryTimeS: number | null;
-  energyKWh: number;
-  safetyTrips: number;
-}
+/** The measures standings rank on, from the official (replayed) results (defined in sim). */
+export type { AttemptSummary } from "@/sim/drill/summary";
+import type { AttemptSummary } from "@/sim/drill/summary";
 
 /** Automatic feedback on one scoring window (sim/drill/feedback.ts makes it). */
-export interface WindowFeedback {
-  windowId: string;
-  label: string;
-  kind: "setpoint" | "disturbance";
-  weight: number;
-  /** the attempt's measures: IAE °C·s, peak °C (overshoot or peak deviation), time s (settling or recovery; null = never) */
-  measured: { iae: number; peak: number; time: number | null };
-  /** the reference tuning's measures on the same drill and seed */
-  reference: { iae: number; peak: number; time: number | null };
-  ratios: { iae: number; peak: number; time: number };
-  score: number;
-  verdict: "better" | "close" | "worse";
-  /** one sentence: what stands out */
-  finding: string;
-  /** one concrete suggestion */
-  hint: string;
-}
+export type { WindowFeedback } from "@/sim/drill/feedback";
+import type { WindowFeedback } from "@/sim/drill/feedback";
 
 export interface AttemptFeedbackNote {
   id: string;
