@@ -37,6 +37,12 @@ export const VERDICT_BANDS = { betterFrom: 55, worseBelow: 45 } as const;
 
 /** A ratio above this counts as clearly worse than the reference (our own threshold: 20 %). */
 const WORSE_RATIO = 1.2;
+/**
+ * "Close to oscillating": overshoot of at least a quarter of the step (the quarter-decay response is
+ * the classic aggressive limit, common practice) and settling more than twice the reference's.
+ */
+const OSCILLATING_OVERSHOOT_PCT = 25;
+const OSCILLATING_TIME_RATIO = 2;
 /** Output travel this many times the reference's (and at least NOISY_MIN_TRAVEL_PCT more) reads as a noisy OUT (our own threshold). */
 const NOISY_TRAVEL_RATIO = 3;
 const NOISY_MIN_TRAVEL_PCT = 50;
@@ -93,12 +99,11 @@ function oneWindow(drill: Drill, aw: WindowResultPair, rw: WindowResultPair, ws:
   const r = measures(rw);
   const verdict = verdictOf(ws.score);
   const ratios = ws.ratios;
-  const alpha = drill.scoring.metricWeights;
-  // the metric that moved the cost most away from the reference's (weight × (ratio − 1))
-  const contrib: Record<Metric, number> = { iae: alpha.iae * (ratios.iae - 1), peak: alpha.peak * (ratios.peak - 1), time: alpha.time * (ratios.time - 1) };
-  const order = (Object.keys(contrib) as Metric[]).sort((x, y) => contrib[y] - contrib[x]);
-  const worst = order[0];
-  const best = order[order.length - 1];
+  const metricsOrder: Metric[] = ["iae", "peak", "time"];
+  // the worst metric against the reference (largest ratio) and the best (smallest)
+  const byRatio = [...metricsOrder].sort((x, y) => ratios[y] - ratios[x]);
+  const worst = byRatio[0];
+  const best = byRatio[byRatio.length - 1];
 
   const tripNear = attempt.safetyTrips.some((t) => t.timeS >= aw.trueTemperature.windowStartS - TRIP_NEAR_S && t.timeS <= aw.trueTemperature.windowEndS);
   const travelA = aw.trueTemperature.outputTravelPct;
@@ -107,30 +112,50 @@ function oneWindow(drill: Drill, aw: WindowResultPair, rw: WindowResultPair, ws:
   const peakHigh = ratios.peak > WORSE_RATIO;
   const timeHigh = ratios.time > WORSE_RATIO;
   const iaeHigh = ratios.iae > WORSE_RATIO;
+  const slowMetric: Metric = ratios.time >= ratios.iae ? "time" : "iae";
 
+  // the dominating symptom, in this order: a trip, the loop's own response, a noisy OUT, none
   let hint: string;
-  let text = verdict === "better" && !tripNear && !noisy ? null : finding(aw.kind, worst, a, r);
+  let text: string;
   if (tripNear) {
     hint = HINTS.trip;
-    text = `The safety cutout tripped during or just before this window. ${finding(aw.kind, worst, a, r)}`;
+    text = `The safety cutout tripped during or just before this window; ${lowerFirst(finding(aw.kind, worst, a, r))}`;
+  } else if (aw.kind === "setpoint" && peakHigh && ratios.time > OSCILLATING_TIME_RATIO && (aw.trueTemperature.overshootPct ?? 0) >= OSCILLATING_OVERSHOOT_PCT) {
+    hint = HINTS.oscillating;
+    text = finding(aw.kind, "peak", a, r);
+  } else if (aw.kind === "setpoint" && peakHigh) {
+    hint = HINTS.overshoot;
+    text = finding(aw.kind, "peak", a, r);
+  } else if (aw.kind === "setpoint" && (timeHigh || iaeHigh)) {
+    hint = HINTS.sluggish;
+    text = finding(aw.kind, slowMetric, a, r);
+  } else if (aw.kind === "disturbance" && peakHigh) {
+    hint = HINTS.disturbancePeak;
+    text = finding(aw.kind, "peak", a, r);
+  } else if (aw.kind === "disturbance" && (timeHigh || iaeHigh)) {
+    hint = HINTS.recovery;
+    text = finding(aw.kind, slowMetric, a, r);
   } else if (noisy) {
     hint = HINTS.noisy;
     text = `The output moved ${fmt(travelA, 0)} % in total against the reference's ${fmt(travelR, 0)} %: a noisy OUT.`;
-  } else if (verdict === "better" && !peakHigh && !timeHigh && !iaeHigh) {
+  } else if (verdict === "better") {
     hint = `well done: ${wellDone(aw.kind, best)} than the reference`;
-  } else if (aw.kind === "setpoint") {
-    if (peakHigh && timeHigh) hint = HINTS.oscillating;
-    else if (peakHigh) hint = HINTS.overshoot;
-    else if (timeHigh || iaeHigh) hint = HINTS.sluggish;
-    else hint = verdict === "worse" ? HINTS.sluggish : `close to the reference: ${wellDone(aw.kind, best)}; fine-tune from here`;
+    text = `Better than the reference: ${lowerFirst(finding(aw.kind, best, a, r))}`;
+  } else if (verdict === "worse") {
+    // worse overall although no single metric stands out: the general rule for a slow loop
+    hint = aw.kind === "setpoint" ? HINTS.sluggish : HINTS.recovery;
+    text = finding(aw.kind, worst, a, r);
   } else {
-    if (peakHigh) hint = HINTS.disturbancePeak;
-    else if (timeHigh || iaeHigh) hint = HINTS.recovery;
-    else hint = verdict === "worse" ? HINTS.recovery : `close to the reference: ${wellDone(aw.kind, best)}; fine-tune from here`;
+    hint = "on a par with the reference: change the gain or the integral time a little at a time and watch which way the score moves";
+    text = `On a par with the reference: ${lowerFirst(finding(aw.kind, worst, a, r))}`;
   }
-  if (text === null) text = `Better than the reference: ${finding(aw.kind, best, a, r).replace(/^./, (c) => c.toLowerCase())}`;
 
   return { windowId: aw.id, label: aw.label, kind: aw.kind, weight: aw.weight, measured: a, reference: r, ratios: { ...ratios }, score: ws.score, verdict, finding: text, hint };
+}
+
+function lowerFirst(x: string): string {
+  // keep acronyms (IAE) as they are
+  return /^[A-Z][a-z]/.test(x) ? x[0].toLowerCase() + x.slice(1) : x;
 }
 
 function wellDone(kind: "setpoint" | "disturbance", m: Metric): string {
