@@ -84,8 +84,9 @@ function energyKWh(trace: Trace, ts: number): number {
  * - mode and manual-output actions are allowed when operating the loop is, and also when the drill
  *   allows a relay or bump test (sim/worker/bench-tests.ts takes the loop to manual and drives OUT
  *   through exactly those actions);
- * - setpoint actions need `operation`, except one that puts the SP back to the value it had when the
- *   loop last went to manual (the bump test's hand-back with SP tracking), when tests are allowed.
+ * - setpoint actions need `operation`, except, when tests are allowed, one made while in manual that
+ *   puts the SP back to the value it had when the loop went to manual (the bump test's hand-back
+ *   with SP tracking: SP restored, then auto, at the same sample; the log is taken in sample order).
  * Results score against the drill's scripted SP when operation is not allowed (results.ts), so
  * hand-operating cannot game the setpoint.
  */
@@ -111,7 +112,7 @@ function allViolations(drill: Drill, cfg: ControllerConfig, actions: readonly St
     if (a.type === "tuning") {
       for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) found.add(v);
     } else if (a.type === "mode" || a.type === "manual-output") {
-      if (a.type === "mode" && a.mode === "manual") spWhenManual = operatorSp ?? scriptedSpAt(a.sample);
+      if (a.type === "mode") spWhenManual = a.mode === "manual" ? operatorSp ?? scriptedSpAt(a.sample) : null; // a restore counts only while in manual
       if (!modeAndOutputOk) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
     } else if (a.type === "setpoint") {
       const restore: boolean = testsAllowed && spWhenManual !== null && Math.abs(a.setpointC - spWhenManual) <= 1e-9;
