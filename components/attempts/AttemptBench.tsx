@@ -14,11 +14,12 @@ import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/con
 import { controllerViolations } from "@/sim/drill/permissions";
 import { resolveCutout, resolveSensor } from "@/sim/drill/resolve";
 import type { Drill } from "@/sim/drill/schema";
-import { SCORE_FORMULA, type AttemptScore } from "@/sim/drill/score";
+import type { AttemptScore } from "@/sim/drill/score";
 import { temperatureToDisplay, type TemperatureUnit } from "@/sim/units";
 import { Trend } from "@/components/trend/Trend";
 import { formatElapsed } from "@/components/trend/format";
 import { TableHead } from "@/components/tables/TableHead";
+import { RubricPanel } from "@/components/assignments/RubricPanel";
 import { ControllerForm } from "@/components/bench/ControllerForm";
 import { BenchEngine } from "@/components/bench/engine-client";
 import { AlarmChip, Faceplate, type FaceplateProps } from "@/components/bench/Faceplate";
@@ -71,7 +72,6 @@ export function formatDue(iso: string, timeZone: string): string {
   }
 }
 
-const minutes = (s: number) => `${Number.isInteger(s / 60) ? s / 60 : (s / 60).toFixed(1)}`;
 
 type ClaimState =
   | { status: "waiting" }
@@ -412,71 +412,6 @@ export function AttemptBench({ launch, submit, onSubmitted }: AttemptBenchProps)
         </aside>
       </div>
     </div>
-  );
-}
-
-/** The rubric, visible before the attempt: the formula, the windows, the weights and the rules. */
-function RubricPanel({ drill, speeds }: { drill: Drill; speeds: number[] }) {
-  const s = drill.scoring;
-  const may = drill.trainee.mayChange;
-  const yes = (v: boolean) => (v ? "yes" : "no");
-  return (
-    <section aria-label="How this attempt is scored" data-testid="attempt-rubric" className="space-y-3 rounded-sm border border-rule bg-paper-raised p-4 text-xs">
-      <h2 className="font-semibold uppercase tracking-wide text-ink-faint">How this attempt is scored</h2>
-      <p className="leading-snug text-ink-soft">{SCORE_FORMULA}</p>
-      <p className="leading-snug text-ink-soft">
-        Measured on the true temperature; the reference is this drill&apos;s reference tuning on the same drill and seed. Each cutout trip multiplies the total by <span className="num">{s.tripPenaltyFactor}</span>.
-      </p>
-      <table className="w-full border-collapse" data-testid="attempt-rubric-windows">
-        <TableHead columns={["window", "kind", "min", "weight"]} />
-        <tbody>
-          {s.windows.map((w) => (
-            <tr key={w.id} className="border-b border-rule">
-              <td className="py-1 pr-2">{w.label ?? w.id}</td>
-              <td className="py-1 pr-2 text-ink-soft">{w.kind}</td>
-              <td className="num py-1 pr-2">
-                {minutes(w.startS)}–{minutes(w.endS)} min
-              </td>
-              <td className="num py-1">{w.weight}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <dl className="grid grid-cols-[1fr_auto] gap-x-3 gap-y-0.5">
-        <dt className="text-ink-soft">Weight of IAE</dt>
-        <dd className="num">{s.metricWeights.iae}</dd>
-        <dt className="text-ink-soft">Weight of overshoot / peak deviation</dt>
-        <dd className="num">{s.metricWeights.peak}</dd>
-        <dt className="text-ink-soft">Weight of settling / recovery time</dt>
-        <dd className="num">{s.metricWeights.time}</dd>
-        <dt className="text-ink-soft">Settling band floor</dt>
-        <dd className="num">{s.bandFloorC} °C</dd>
-      </dl>
-      <div>
-        <h3 className="mb-0.5 font-semibold text-ink-soft">What you may change</h3>
-        <dl className="grid grid-cols-[1fr_auto] gap-x-3 gap-y-0.5" data-testid="attempt-rubric-rules">
-          <dt className="text-ink-soft">Tuning (gains, times, form, weights, anti-windup)</dt>
-          <dd>yes</dd>
-          <dt className="text-ink-soft">PV filter</dt>
-          <dd>{yes(may.pvFilter)}</dd>
-          <dt className="text-ink-soft">Sample time</dt>
-          <dd>{may.sampleTime ? "before the run" : "no"}</dd>
-          <dt className="text-ink-soft">Operating the loop (SP, auto/manual, OUT)</dt>
-          <dd>{yes(may.operation)}</dd>
-          <dt className="text-ink-soft">Relay test</dt>
-          <dd>{yes(drill.trainee.relayTestAllowed)}</dd>
-          <dt className="text-ink-soft">Bump test</dt>
-          <dd>{yes(drill.trainee.bumpTestAllowed)}</dd>
-        </dl>
-      </div>
-      <div>
-        <h3 className="mb-0.5 font-semibold text-ink-soft">Pace</h3>
-        <p className="leading-snug text-ink-soft" data-testid="attempt-rubric-pace">
-          Runs <span className="num">{formatElapsed(drill.durationS)}</span> of simulated time at <span className="num">{speeds.map(speedLabel).join(", ")}</span> real time.{" "}
-          {drill.pace.pauseAllowed ? "You may pause." : "No pause: once started, it runs to the end."} No reset: the attempt counts from its start.
-        </p>
-      </div>
-    </section>
   );
 }
 

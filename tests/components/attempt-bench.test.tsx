@@ -149,7 +149,8 @@ describe("AttemptBench", () => {
     const row = within(screen.getByTestId("attempt-rubric-windows")).getByText("60 → 80 °C").closest("tr")!;
     expect(row.textContent).toMatch(/setpoint/);
     expect(row.textContent).toMatch(/5–10 min/);
-    expect(row.textContent).toMatch(/2$/);
+    // one window: its weight (2) is the whole score, shown as a share
+    expect(row.textContent).toMatch(/100 %$/);
     expect(rubric.textContent).toMatch(/Weight of IAE0\.5/);
     expect(screen.getByTestId("attempt-rubric-pace").textContent).toMatch(/×1, ×10, ×60, ×600/);
     expect(screen.getByTestId("attempt-rubric-pace").textContent).toMatch(/You may pause/);
