@@ -151,7 +151,8 @@ describe("AttemptBench", () => {
     expect(row.textContent).toMatch(/5–10 min/);
     // one window: its weight (2) is the whole score, shown as a share
     expect(row.textContent).toMatch(/100 %$/);
-    expect(rubric.textContent).toMatch(/Weight of IAE0\.5/);
+    // metric weights 0.5 / 0.25 / 0.25 (the schema defaults) shown as shares of 100 %
+    expect(rubric.textContent).toMatch(/IAE50 %/);
     expect(screen.getByTestId("attempt-rubric-pace").textContent).toMatch(/×1, ×10, ×60, ×600/);
     expect(screen.getByTestId("attempt-rubric-pace").textContent).toMatch(/You may pause/);
     // no Bench-only panels in a scored attempt
