@@ -16,7 +16,7 @@ import { getDb } from "@/db/client";
 import { drills, drillVersions, organizations, users, type UserRole } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { drillSchema } from "@/sim/drill/schema";
-import { uniqueEmail } from "./helpers";
+import { dbRefusal, uniqueEmail } from "./helpers";
 
 const db = () => getDb();
 let passwordHash = "";
@@ -48,16 +48,6 @@ const versionsOf = (drillId: string) => db().select().from(drillVersions).where(
 const drillCount = async () => (await db().select({ n: count() }).from(drills))[0].n;
 const versionCount = async () => (await db().select({ n: count() }).from(drillVersions))[0].n;
 /** The database's own message (drizzle wraps it as the cause of "Failed query"). */
-async function dbRefusal(query: PromiseLike<unknown>): Promise<string> {
-  try {
-    await query;
-  } catch (err) {
-    const messages: string[] = [];
-    for (let e: unknown = err, depth = 0; e && depth < 4; e = (e as { cause?: unknown }).cause, depth++) messages.push(String((e as Error).message));
-    return messages.join(" / ");
-  }
-  throw new Error("the database accepted the change");
-}
 const docOf = async (drillId: string, version: number) => (await drillVersionFor(owner, drillId, version))!.document;
 
 describe("who builds drills", () => {

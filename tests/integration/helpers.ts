@@ -25,3 +25,15 @@ export function linkIn(text: string, path: string): { url: string; token: string
 }
 
 export const uniqueEmail = (prefix: string) => `${prefix}-${Date.now().toString(36)}${Math.floor(Math.random() * 1e6)}@test.example`;
+
+/** The messages of a refused query (Drizzle wraps PostgreSQL's error as its cause); throws if it was accepted. */
+export async function dbRefusal(query: PromiseLike<unknown>): Promise<string> {
+  try {
+    await query;
+  } catch (err) {
+    const messages: string[] = [];
+    for (let e: unknown = err, depth = 0; e && depth < 4; e = (e as { cause?: unknown }).cause, depth++) messages.push(String((e as Error).message));
+    return messages.join(" / ");
+  }
+  throw new Error("the database accepted the change");
+}

@@ -103,7 +103,7 @@ describe("e-mail", () => {
     const mail = await waitForMail(w.trainees[1].email, "New drill assigned", 30_000);
     expect(mail.textBody).toContain("/assignments/");
     expect(mail.textBody).toMatch(/Due .*\d{4}/);
-  });
+  }, 60_000);
 
   it("e-mails written feedback to the trainee and shows it on the attempt", async () => {
     const [row] = await getDb().select().from(attempts).where(and(eq(attempts.assignmentId, assignmentId), eq(attempts.traineeId, w.trainees[2].id)));
@@ -113,5 +113,5 @@ describe("e-mail", () => {
     const seen = await attemptDetail(w.trainees[2], row.id);
     expect(seen.feedback.map((f) => f.body)).toContain("Good recovery; try a little derivative action to trim the overshoot.");
     await expect(leaveFeedback(w.trainees[0], row.id, "not mine to say")).rejects.toThrow(/does not exist/);
-  });
+  }, 60_000);
 });

@@ -1,7 +1,7 @@
 // A verification job interrupted by killing its worker completes after a worker starts again
 // (issue 6, "Tests"). This file runs its own worker processes (worker.ts, as `npm start` runs it)
 // on queues of their own (LOOPWRIGHT_QUEUE_PREFIX), so the test runner's worker never takes the
-// job. The attempt's drill is a 6 h run of the nonlinear-loss cabinet, whose replay takes seconds,
+// job. The attempt's drill is a 3 h run of the nonlinear-loss cabinet, whose replay takes seconds,
 // so the job is still running when the worker is killed (SIGKILL: no chance to hand it back).
 // pg-boss then expires the job after its expiry (fixed here at 20 s through LOOPWRIGHT_JOB_EXPIRY_S,
 // the operator's override) and retries it; the result write is idempotent. At-least-once delivery
@@ -58,9 +58,9 @@ beforeAll(async () => {
   const w = await classroom(["Petra Quill"]);
   const { drill, drillId } = await publishedDrill(w.instructor, {
     ...w.drill,
-    title: "Six hours on the nonlinear cabinet",
+    title: "Three hours on the nonlinear cabinet",
     plant: { kind: "preset", presetId: "benchtop-curing-cabinet", lossModel: "nonlinear" },
-    durationS: 6 * 3600,
+    durationS: 3 * 3600,
     referenceTuning: { ...w.drill.referenceTuning, sampleTimeS: 0.1 },
   });
   const { id } = await assign(w.instructor, w.cohort.id, drillId);
