@@ -8,6 +8,7 @@ import { newUserId } from "../app/_lib/tokens";
 import { cohortMemberships, cohorts, organizations, users } from "./schema";
 import { DEMO_COHORT, DEMO_ORGANIZATION, DEMO_PASSWORD, demoPeople } from "./demo-people";
 import { seedDemoDrills } from "./seed-drills";
+import { seedDemoClassroom } from "./seed-classroom";
 
 export { DEMO_COHORT, DEMO_ORGANIZATION, DEMO_PASSWORD, demoPeople } from "./demo-people";
 
@@ -52,6 +53,7 @@ export async function seedDemo(url: string): Promise<void> {
     await client.end();
   }
   await seedDemoDrills(url);
+  await seedDemoClassroom(url);
 }
 
 if (process.argv[1]?.endsWith("seed.ts")) {

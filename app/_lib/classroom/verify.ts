@@ -10,43 +10,30 @@
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { assignments, attempts, drillVersions } from "@/db/schema";
-import { controllerConfigSchema } from "@/sim/control/config";
-import { actionLogSchema } from "@/sim/drill/actions";
 import { checkClaim } from "@/sim/drill/claim-check";
-import { windowFeedback } from "@/sim/drill/feedback";
-import { runDrill } from "@/sim/drill/run-drill";
-import { drillSchema } from "@/sim/drill/schema";
-import { scoreAttempt } from "@/sim/drill/score";
-import { attemptSummary } from "@/sim/drill/summary";
-import { traceFingerprint } from "@/sim/drill/trace-hash";
 import { ENGINE_VERSION } from "@/sim/version";
+import { replayAttempt, type OfficialVerification } from "@/sim/drill/verify-attempt";
 
-export interface OfficialVerification {
-  engineVersion: string;
-  fingerprint: string;
-  results: ReturnType<typeof runDrill>["results"];
-  score: ReturnType<typeof scoreAttempt>;
-  summary: ReturnType<typeof attemptSummary>;
-  windows: ReturnType<typeof windowFeedback>;
-  violations: string[];
-}
+export { replayAttempt, type OfficialVerification };
 
-/** The replay itself, pure apart from its inputs: the same inputs give the same official results. */
-export function replayAttempt(p: { drill: unknown; controller: unknown; actionLog: unknown; seed: number; latePenaltyFactor: number }): OfficialVerification {
-  const drill = drillSchema.parse(p.drill);
-  const controller = controllerConfigSchema.parse(p.controller);
-  const actions = actionLogSchema.parse(p.actionLog);
-  const attempt = runDrill(drill, controller, actions, p.seed);
-  const reference = runDrill(drill, drill.referenceTuning, [], p.seed);
-  const score = scoreAttempt(drill, attempt.results, reference.results);
+/** The columns of an attempt row that only the replay writes (standings read the summary ones). */
+export function officialColumns(official: OfficialVerification) {
+  const s = official.summary;
   return {
-    engineVersion: ENGINE_VERSION,
-    fingerprint: traceFingerprint(attempt.trace),
-    results: attempt.results,
-    score,
-    summary: attemptSummary(attempt.results, score, p.latePenaltyFactor),
-    windows: windowFeedback(drill, attempt.results, reference.results, score),
-    violations: attempt.results.controllerViolations,
+    status: "verified" as const,
+    engineVersion: official.engineVersion,
+    officialFingerprint: official.fingerprint,
+    officialResults: official.results as unknown as Record<string, unknown>,
+    officialScoreDetail: { score: official.score, windows: official.windows } as unknown as Record<string, unknown>,
+    score: s.score,
+    rawScore: s.rawScore,
+    settlingTimeS: s.settlingTimeS,
+    overshootC: s.overshootC,
+    iae: s.iae,
+    recoveryTimeS: s.recoveryTimeS,
+    energyKWh: s.energyKWh,
+    safetyTrips: s.safetyTrips,
+    violations: official.violations,
   };
 }
 
@@ -87,30 +74,9 @@ export async function verifyAttempt(attemptId: string): Promise<VerifyOutcome> {
     { score: official.score.score, fingerprint: official.fingerprint, windows: official.score.windows.map((w) => ({ id: w.id, score: w.score })) },
   );
   const flagged = !claim.ok;
-  const s = official.summary;
   await db
     .update(attempts)
-    .set({
-      status: "verified",
-      verifiedAt: a.verifiedAt ?? new Date(),
-      engineVersion: official.engineVersion,
-      officialFingerprint: official.fingerprint,
-      officialResults: official.results as unknown as Record<string, unknown>,
-      officialScoreDetail: { score: official.score, windows: official.windows } as unknown as Record<string, unknown>,
-      score: s.score,
-      rawScore: s.rawScore,
-      settlingTimeS: s.settlingTimeS,
-      overshootC: s.overshootC,
-      iae: s.iae,
-      recoveryTimeS: s.recoveryTimeS,
-      energyKWh: s.energyKWh,
-      safetyTrips: s.safetyTrips,
-      violations: official.violations,
-      flagged,
-      flagReason: claim.ok ? null : claim.reason,
-      failureReason: null,
-      verifyRuns: a.verifyRuns + 1,
-    })
+    .set({ ...officialColumns(official), verifiedAt: a.verifiedAt ?? new Date(), flagged, flagReason: claim.ok ? null : claim.reason, failureReason: null, verifyRuns: a.verifyRuns + 1 })
     // idempotent: a second delivery rewrites the same values; a started attempt is never touched
     .where(and(eq(attempts.id, a.id), inArray(attempts.status, ["submitted", "verified"])));
   return { state: "verified", official, flagged };
