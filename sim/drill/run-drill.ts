@@ -110,14 +110,18 @@ function allViolations(drill: Drill, cfg: ControllerConfig, actions: readonly St
   let spWhenManual: number | null = null;
   for (const a of [...actions].sort((x, y) => x.sample - y.sample)) {
     if (a.type === "tuning") {
-      for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) found.add(v);
+      // a relay test switches the block to on/off between its two OUT levels (and back): allowed with the test
+      const relayLevels = new Set(t.relayTestAllowed ? ["outOnPct", "outOffPct"] : []);
+      for (const v of controllerViolations(drill, controllerConfigSchema.parse(a.controller))) if (!relayLevels.has(v)) found.add(v);
     } else if (a.type === "mode" || a.type === "manual-output") {
       if (a.type === "mode") spWhenManual = a.mode === "manual" ? operatorSp ?? scriptedSpAt(a.sample) : null; // a restore counts only while in manual
       if (!modeAndOutputOk) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
     } else if (a.type === "setpoint") {
       const restore: boolean = testsAllowed && spWhenManual !== null && Math.abs(a.setpointC - spWhenManual) <= 1e-9;
-      if (!t.mayChange.operation && !restore) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
-      operatorSp = restore ? null : a.setpointC;
+      // the SP set to the value already in force changes nothing (a relay test pins it so)
+      const unchanged = testsAllowed && Math.abs(a.setpointC - (operatorSp ?? scriptedSpAt(a.sample))) <= 1e-9;
+      if (!t.mayChange.operation && !restore && !unchanged) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
+      operatorSp = restore || unchanged ? operatorSp : a.setpointC;
     }
   }
   return [...found];

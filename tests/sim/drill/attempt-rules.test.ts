@@ -62,3 +62,36 @@ describe("attempt rules: operating the loop, relay and bump tests", () => {
     expect(gamed.score!.score).toBeLessThan(honest.score!.score);
   });
 });
+
+describe("attempt rules: the relay test's own actions", () => {
+  // as sim/tuning/relay/relay-test.ts does it: manual, kick OUT, switch the block to on/off between
+  // the two levels, auto, pin the SP at the value in force; then the original block back
+  const relay = (): StampedAction[] => {
+    const onoff = { ...relayOnly.referenceTuning, kind: "onoff", outOnPct: 45, outOffPct: 5, hysteresisC: 0.6 };
+    return [
+      { sample: 100, type: "mode", mode: "manual" },
+      { sample: 100, type: "manual-output", outPercent: 45 },
+      { sample: 101, type: "tuning", controller: onoff },
+      { sample: 101, type: "mode", mode: "auto" },
+      { sample: 101, type: "setpoint", setpointC: sp0 },
+      { sample: 500, type: "mode", mode: "manual" },
+      { sample: 500, type: "manual-output", outPercent: 25 },
+      { sample: 500, type: "tuning", controller: relayOnly.referenceTuning },
+      { sample: 501, type: "mode", mode: "auto" },
+    ] as StampedAction[];
+  };
+
+  it("a drill allowing the relay test accepts its on/off levels and the SP pinned at the value in force", () => {
+    expect(violations(relayOnly, relay())).toEqual([]);
+  });
+
+  it("without the relay test, the on/off levels are settings outside the rules", () => {
+    const v = violations(noTests, relay());
+    expect(v).toEqual(expect.arrayContaining(["outOnPct", "outOffPct"]));
+  });
+
+  it("an SP moved to a new value is still a violation when only tests are allowed", () => {
+    const log = [...relay(), { sample: 600, type: "setpoint", setpointC: sp0 + 5 } as StampedAction];
+    expect(violations(relayOnly, log)).toContain("setpoint (operating the loop is not allowed in this drill)");
+  });
+});
