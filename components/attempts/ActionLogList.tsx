@@ -69,7 +69,9 @@ export function describeTuning(next: Obj, before: Obj | null): string {
     if (b === undefined) continue;
     if (before && a === b) continue;
     if (before && a !== undefined) {
-      parts.push(typeof b === "number" && typeof a === "number" ? `${f.name} ${num(a)} → ${num(b)}${f.unit}` : `${f.name} ${show(a, f.unit)} → ${show(b, f.unit)}`);
+      // gains carry their (compound) unit once, at the end; times, temperatures and outputs on both sides
+      const once = f.unit.includes("/") || f.unit === "";
+      parts.push(typeof b === "number" && typeof a === "number" ? `${f.name} ${num(a)}${once ? "" : f.unit} → ${num(b)}${f.unit}` : `${f.name} ${show(a, f.unit)} → ${show(b, f.unit)}`);
     } else if (!before && ["kc", "ti", "td"].includes(f.key)) {
       parts.push(`${f.name} ${show(b, f.unit)}`);
     } else if (before) parts.push(`${f.name} ${show(b, f.unit)}`);
