@@ -1,8 +1,10 @@
+"use client";
 /**
  * An attempt's operator actions in words, one line each: the sample index, the time (mm:ss) and
  * what it did, e.g. "Kc 4 → 6 %/°C, Ti 300 s → 240 s", "SP 60.0 °C", "manual OUT 35 %",
  * "relay test: on/off 60 % / 20 %, hysteresis 0.4 °C".
  */
+import { useState } from "react";
 import { formatElapsed } from "@/components/trend/format";
 import { controllerConfigSchema } from "@/sim/control/config";
 
@@ -155,20 +157,32 @@ export function actionLines(actions: readonly unknown[], startController: Obj | 
   return out;
 }
 
+/** A long log (a relay test by hand, a nervous operator) lists this many lines until asked for all. */
+const LIST_LIMIT = 500;
+
 export function ActionLogList({ actions, controller, sampleTimeS, timeOf }: { actions: readonly unknown[]; controller: Obj | null; sampleTimeS: number; timeOf?: (sample: number) => number | undefined }) {
+  const [all, setAll] = useState(false);
   const lines = actionLines(actions, controller, sampleTimeS, timeOf);
   if (lines.length === 0) return <p className="text-sm text-ink-faint">No operator actions: the run went untouched from its starting tuning.</p>;
+  const shown = all ? lines : lines.slice(0, LIST_LIMIT);
   return (
-    <ol className="max-h-80 divide-y divide-rule overflow-y-auto border-y border-rule text-sm" data-testid="action-log">
-      {lines.map((l, i) => (
-        <li key={i} className="flex gap-3 py-1" data-testid="action-log-item">
-          <span className="num w-16 shrink-0 text-right text-ink-faint" title="sample index">
-            #{l.sample}
-          </span>
-          <span className="num w-16 shrink-0 text-ink-soft">{formatElapsed(l.timeS)}</span>
-          <span>{l.text}</span>
-        </li>
-      ))}
-    </ol>
+    <div className="space-y-1">
+      <ol className="max-h-80 divide-y divide-rule overflow-y-auto border-y border-rule text-sm" data-testid="action-log">
+        {shown.map((l, i) => (
+          <li key={i} className="flex gap-3 py-1" data-testid="action-log-item">
+            <span className="num w-16 shrink-0 text-right text-ink-faint" title="sample index">
+              #{l.sample}
+            </span>
+            <span className="num w-16 shrink-0 text-ink-soft">{formatElapsed(l.timeS)}</span>
+            <span>{l.text}</span>
+          </li>
+        ))}
+      </ol>
+      {shown.length < lines.length ? (
+        <button type="button" onClick={() => setAll(true)} className="text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+          show all <span className="num">{lines.length}</span> actions
+        </button>
+      ) : null}
+    </div>
   );
 }

@@ -51,6 +51,26 @@ const sampleTimeOf = (a: AttemptDetail) => (typeof a.controller?.sampleTimeS ===
 function ReplayChart({ main, other, otherLabel, ticks }: { main: TraceBuffer; other: TraceBuffer | null; otherLabel: string; ticks: ActionLine[] }) {
   const hostT = useRef<HTMLDivElement>(null);
   const hostO = useRef<HTMLDivElement>(null);
+  const plots = useRef<{ temp: uPlot; out: uPlot } | null>(null);
+  const exportPng = () => {
+    const p = plots.current;
+    if (!p?.temp.ctx || !p.out.ctx) return;
+    const a = p.temp.ctx.canvas;
+    const b = p.out.ctx.canvas;
+    const canvas = document.createElement("canvas");
+    canvas.width = Math.max(a.width, b.width);
+    canvas.height = a.height + b.height;
+    const ctx = canvas.getContext("2d");
+    if (!ctx) return;
+    ctx.fillStyle = "#fbfaf7";
+    ctx.fillRect(0, 0, canvas.width, canvas.height);
+    ctx.drawImage(a, 0, 0);
+    ctx.drawImage(b, 0, a.height);
+    const link = document.createElement("a");
+    link.href = canvas.toDataURL("image/png");
+    link.download = "loopwright-attempt-trend.png";
+    link.click();
+  };
   useEffect(() => {
     if (!hostT.current || !hostO.current || main.length < 2) return;
     const c = main.columns;
@@ -133,7 +153,9 @@ function ReplayChart({ main, other, otherLabel, ticks }: { main: TraceBuffer; ot
       [d.x, d.series[4], ...(hasOther ? [cmpOut] : [])] as uPlot.AlignedData,
       hostO.current,
     );
+    plots.current = { temp, out };
     return () => {
+      plots.current = null;
       temp.destroy();
       out.destroy();
     };
@@ -142,7 +164,12 @@ function ReplayChart({ main, other, otherLabel, ticks }: { main: TraceBuffer; ot
     <div className="space-y-1" data-testid="attempt-trend">
       <div ref={hostT} className="lw-trend" />
       <div ref={hostO} className="lw-trend" />
-      <p className="text-[11px] text-ink-faint">Ticks at the top and bottom edges mark the operator&apos;s actions (listed below).</p>
+      <p className="flex text-[11px] text-ink-faint">
+        <span>Ticks at the top and bottom edges mark the operator&apos;s actions (listed below).</span>
+        <button type="button" onClick={exportPng} className="ml-auto underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+          Export PNG
+        </button>
+      </p>
     </div>
   );
 }
