@@ -245,7 +245,8 @@ export function AttemptReview({ attempt, compareWith, compareOptions, feedbackFo
   const buffer = replay.buffer;
   const done = replay.status === "done";
   const timeOf = (sample: number) => (buffer && sample < buffer.length ? buffer.columns.timeS[sample] : undefined);
-  const ticks = useMemo(() => actionLines(a.actionLog ?? [], a.controller, h), [a.actionLog, a.controller, h]);
+  // keyed on the attempt, not the object: a polled refresh of the same attempt keeps the chart
+  const ticks = useMemo(() => actionLines(a.actionLog ?? [], a.controller, h), [a.id, a.actionLog?.length, h]); // eslint-disable-line react-hooks/exhaustive-deps
   const otherLabel = compareWith ? `attempt ${compareWith.number} — ${compareWith.trainee.name}` : "";
 
   return (
