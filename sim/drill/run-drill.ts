@@ -119,7 +119,7 @@ function allViolations(drill: Drill, cfg: ControllerConfig, actions: readonly St
     } else if (a.type === "setpoint") {
       const restore: boolean = testsAllowed && spWhenManual !== null && Math.abs(a.setpointC - spWhenManual) <= 1e-9;
       // the SP set to the value already in force changes nothing (a relay test pins it so)
-      const unchanged = testsAllowed && Math.abs(a.setpointC - (operatorSp ?? scriptedSpAt(a.sample))) <= 1e-9;
+      const unchanged: boolean = testsAllowed && Math.abs(a.setpointC - (operatorSp ?? scriptedSpAt(a.sample))) <= 1e-9;
       if (!t.mayChange.operation && !restore && !unchanged) found.add(`${a.type} (operating the loop is not allowed in this drill)`);
       operatorSp = restore || unchanged ? operatorSp : a.setpointC;
     }
