@@ -15,7 +15,8 @@ const fetcher = async (url: string): Promise<AttemptDetail> => {
 export function AttemptOutcome({ initial, compareWith, compareOptions, feedbackForm }: { initial: AttemptDetail; compareWith: AttemptDetail | null; compareOptions: { id: string; label: string }[]; feedbackForm: ReactNode }) {
   const { data } = useSWR(`/api/attempts/${initial.id}`, fetcher, {
     fallbackData: initial,
-    refreshInterval: (d) => (d && d.status === "verifying" ? 1500 : 0),
+    // SWR passes the cached data, which is empty until the first fetch (the fallback is not cached)
+    refreshInterval: (d) => (!d || d.status === "verifying" ? 1500 : 0),
     revalidateOnFocus: true,
   });
   const attempt = data ?? initial;

@@ -61,7 +61,7 @@ function Tag({ kind }: { kind: "flagged" | "late" }) {
   );
 }
 
-function Cells({ row, view, fmtDate }: { row: StandingsRow; view: "best" | "all"; fmtDate: Intl.DateTimeFormat }) {
+function Cells({ row, view, fmtDate, windows }: { row: StandingsRow; view: "best" | "all"; fmtDate: Intl.DateTimeFormat; windows: StandingsResponse["assignment"]["windowKinds"] }) {
   const s = row.summary;
   const label = view === "all" ? `${row.traineeLabel} · attempt ${row.attemptNumber}` : row.traineeLabel;
   return (
@@ -74,10 +74,10 @@ function Cells({ row, view, fmtDate }: { row: StandingsRow; view: "best" | "all"
         {row.late ? <Tag kind="late" /> : null}
       </td>
       <td className="num py-1.5 pr-3 font-medium">{s.score.toFixed(1)}</td>
-      <td className="num py-1.5 pr-3">{s.settlingTimeS === null ? <span className="font-sans text-ink-faint">not settled</span> : `${formatElapsed(s.settlingTimeS)}`}</td>
+      <td className="num py-1.5 pr-3">{!windows.setpoint ? "—" : s.settlingTimeS === null ? <span className="font-sans text-ink-faint">not settled</span> : `${formatElapsed(s.settlingTimeS)}`}</td>
       <td className="num py-1.5 pr-3">{s.overshootC === null ? "—" : `${s.overshootC.toFixed(2)} °C`}</td>
       <td className="num py-1.5 pr-3">{`${s.iae.toFixed(0)} °C·s`}</td>
-      <td className="num py-1.5 pr-3">{s.recoveryTimeS === null ? <span className="font-sans text-ink-faint">not recovered</span> : formatElapsed(s.recoveryTimeS)}</td>
+      <td className="num py-1.5 pr-3">{!windows.disturbance ? "—" : s.recoveryTimeS === null ? <span className="font-sans text-ink-faint">not recovered</span> : formatElapsed(s.recoveryTimeS)}</td>
       <td className="num py-1.5 pr-3">{`${s.energyKWh.toFixed(2)} kWh`}</td>
       <td className="num py-1.5 pr-3">{row.attemptsUsed}</td>
       <td className="num py-1.5 text-ink-soft">{fmtDate.format(new Date(row.submittedAt))}</td>
@@ -137,7 +137,7 @@ export function StandingsTable({ assignmentId, initial, refreshMs = 5000, csvHre
             <table className="w-full border-collapse text-sm">
               <tbody>
                 <tr className="border-y border-rule bg-paper-sunk" data-testid="standings-row" data-viewer="true">
-                  <Cells row={mine} view="best" fmtDate={fmtDate} />
+                  <Cells row={mine} view="best" fmtDate={fmtDate} windows={data.assignment.windowKinds} />
                 </tr>
               </tbody>
             </table>
@@ -225,7 +225,7 @@ export function StandingsTable({ assignmentId, initial, refreshMs = 5000, csvHre
               data-testid="standings-row"
               data-viewer={r.isViewer ? "true" : undefined}
             >
-              <Cells row={r} view={shownView} fmtDate={fmtDate} />
+              <Cells row={r} view={shownView} fmtDate={fmtDate} windows={data!.assignment.windowKinds} />
             </tr>
           ))}
           {!data && !error ? (

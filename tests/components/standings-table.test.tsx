@@ -29,7 +29,7 @@ function row(rank: number, label: string, over: Partial<StandingsRow["summary"]>
 
 function response(rows: StandingsRow[], over: Partial<StandingsResponse> = {}): StandingsResponse {
   return {
-    assignment: { id: "a1", title: "Ladder", visibility: "names", dueAt: "2026-12-01T00:00:00Z", attemptLimit: 3, timeZone: "UTC" },
+    assignment: { id: "a1", title: "Ladder", visibility: "names", dueAt: "2026-12-01T00:00:00Z", attemptLimit: 3, timeZone: "UTC", windowKinds: { setpoint: true, disturbance: true } },
     viewer: { staff: true },
     view: "best",
     rankedTrainees: rows.length,
@@ -131,5 +131,21 @@ describe("StandingsTable", () => {
     expect(screen.getByTestId("standings-table")).toBe(table); // same element: not remounted
     expect(screen.queryByTestId("standings-verifying")).toBeNull();
     expect(screen.getByText("Cleo Dunn")).toBeTruthy();
+  });
+});
+
+describe("columns without their windows", () => {
+  it("shows a dash, not 'not recovered', when the drill has no disturbance window", async () => {
+    const row = { rank: 1, attemptId: "x1", traineeLabel: "Ada Quinn", isViewer: false, attemptNumber: 1, attemptsUsed: 1, submittedAt: "2026-11-30T10:00:00Z", late: false, flagged: false, summary: { score: 50, rawScore: 50, settlingTimeS: 300, overshootC: 0.4, iae: 900, recoveryTimeS: null, energyKWh: 0.5, safetyTrips: 0 } };
+    const data = response([row]);
+    data.assignment.windowKinds = { setpoint: true, disturbance: false };
+    render(
+      <SWRConfig value={{ provider: () => new Map(), fetcher: async () => data, dedupingInterval: 0 }}>
+        <StandingsTable assignmentId="a1" initial={data} refreshMs={0} />
+      </SWRConfig>,
+    );
+    const cells = within(screen.getAllByTestId("standings-row")[0]).getAllByRole("cell").map((c) => c.textContent);
+    expect(cells).not.toContain("not recovered");
+    expect(cells).toContain("—");
   });
 });

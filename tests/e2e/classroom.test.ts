@@ -32,6 +32,7 @@ describe("classroom", () => {
 
     // build from the airflow-disturbance starter and publish v1
     await t.goto("/drills");
+    await t.getByRole("button", { name: "New drill" }).click();
     await t.locator('input[name="title"]').fill(title);
     await t.locator('input[name="starter"][value="airflow-disturbance"]').check();
     await t.getByRole("button", { name: "Create draft" }).click();

@@ -104,7 +104,16 @@ export interface StandingsRow {
 
 /** GET /api/assignments/[assignmentId]/standings?view=best|all */
 export interface StandingsResponse {
-  assignment: { id: string; title: string; visibility: StandingsVisibility; dueAt: string; attemptLimit: number; timeZone: string };
+  assignment: {
+    id: string;
+    title: string;
+    visibility: StandingsVisibility;
+    dueAt: string;
+    attemptLimit: number;
+    timeZone: string;
+    /** which kinds of scoring window the drill has (settling / recovery columns mean nothing without them) */
+    windowKinds: { setpoint: boolean; disturbance: boolean };
+  };
   viewer: { staff: boolean };
   view: "best" | "all";
   /** trainees ranked (best view) */

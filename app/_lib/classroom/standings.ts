@@ -35,8 +35,10 @@ type RawRow = {
 
 export async function standings(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<StandingsResponse | null> {
   const db = getDb();
-  const [a] = await db.execute<{ id: string; title: string; visibility: StandingsVisibility; due_at: Date; attempt_limit: number; time_zone: string }>(
-    sql`select a.id, a.title, a.visibility, a.due_at, a.attempt_limit, c.time_zone from assignments a join cohorts c on c.id = a.cohort_id where a.id = ${assignmentId}`,
+  const [a] = await db.execute<{ id: string; title: string; visibility: StandingsVisibility; due_at: Date; attempt_limit: number; time_zone: string; kinds: string[] | null }>(
+    sql`select a.id, a.title, a.visibility, a.due_at, a.attempt_limit, c.time_zone,
+               (select array_agg(distinct w->>'kind') from jsonb_array_elements(v.document->'scoring'->'windows') w) as kinds
+        from assignments a join cohorts c on c.id = a.cohort_id join drill_versions v on v.id = a.drill_version_id where a.id = ${assignmentId}`,
   );
   if (!a) return null;
   // current trainees only; attempts used counts every started attempt
@@ -98,7 +100,15 @@ export async function standings(viewer: Viewer, staff: boolean, assignmentId: st
   });
   const rankedTrainees = view === "best" ? rows.length : new Set(rows.map((r) => r.trainee_id)).size;
   return {
-    assignment: { id: a.id, title: a.title, visibility, dueAt: new Date(a.due_at).toISOString(), attemptLimit: a.attempt_limit, timeZone: a.time_zone },
+    assignment: {
+      id: a.id,
+      title: a.title,
+      visibility,
+      dueAt: new Date(a.due_at).toISOString(),
+      attemptLimit: a.attempt_limit,
+      timeZone: a.time_zone,
+      windowKinds: { setpoint: (a.kinds ?? []).includes("setpoint"), disturbance: (a.kinds ?? []).includes("disturbance") },
+    },
     viewer: { staff },
     view,
     rankedTrainees,
