@@ -26,7 +26,8 @@ function Measure({ name, measured, reference, r }: { name: string; measured: str
   );
 }
 
-export function AttemptSummaryLine({ summary }: { summary: AttemptSummary }) {
+/** `kinds`: which windows the drill has; a column without its windows shows a dash. */
+export function AttemptSummaryLine({ summary, kinds = { setpoint: true, disturbance: true } }: { summary: AttemptSummary; kinds?: { setpoint: boolean; disturbance: boolean } }) {
   return (
     <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-4" data-testid="attempt-summary">
       <div>
@@ -38,7 +39,7 @@ export function AttemptSummaryLine({ summary }: { summary: AttemptSummary }) {
       </div>
       <div>
         <dt className="text-xs text-ink-faint">Settling (longest)</dt>
-        <dd className="num">{summary.settlingTimeS === null ? "not settled" : formatElapsed(summary.settlingTimeS)}</dd>
+        <dd className="num">{!kinds.setpoint ? "—" : summary.settlingTimeS === null ? "not settled" : formatElapsed(summary.settlingTimeS)}</dd>
       </div>
       <div>
         <dt className="text-xs text-ink-faint">Overshoot (largest)</dt>
@@ -46,7 +47,7 @@ export function AttemptSummaryLine({ summary }: { summary: AttemptSummary }) {
       </div>
       <div>
         <dt className="text-xs text-ink-faint">Dist. recovery</dt>
-        <dd className="num">{summary.recoveryTimeS === null ? "not recovered" : formatElapsed(summary.recoveryTimeS)}</dd>
+        <dd className="num">{!kinds.disturbance ? "—" : summary.recoveryTimeS === null ? "not recovered" : formatElapsed(summary.recoveryTimeS)}</dd>
       </div>
       <div>
         <dt className="text-xs text-ink-faint">IAE</dt>
@@ -68,7 +69,7 @@ export function WindowFeedbackList({ windows, summary }: { windows: WindowFeedba
   const totalWeight = windows.reduce((a, w) => a + w.weight, 0) || 1;
   return (
     <section aria-label="Results per window" className="space-y-3" data-testid="window-feedback">
-      {summary ? <AttemptSummaryLine summary={summary} /> : null}
+      {summary ? <AttemptSummaryLine summary={summary} kinds={{ setpoint: windows.some((w) => w.kind === "setpoint"), disturbance: windows.some((w) => w.kind === "disturbance") }} /> : null}
       {windows.length === 0 ? <p className="text-sm text-ink-faint">No scoring windows.</p> : null}
       <ol className="divide-y divide-rule border-y border-rule">
         {windows.map((w) => {
