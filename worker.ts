@@ -14,6 +14,7 @@ import { sendOpenNotice } from "./app/_lib/classroom/notices";
 import { drillSchema } from "./sim/drill/schema";
 
 const SWEEP_EVERY_MS = 30_000;
+const VERIFY_BATCH = 10;
 const SWEEP_OLDER_THAN_S = 60;
 
 async function main() {
@@ -25,11 +26,22 @@ async function main() {
   await boss.start();
   await createQueues(boss);
 
-  await boss.work<VerifyJob>(verifyQueue(), { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
-    const t0 = performance.now();
-    const outcome = await verifyAttempt(job.data.attemptId);
-    const ms = (performance.now() - t0).toFixed(0);
-    console.log(`[worker] attempt ${job.data.attemptId}: ${outcome.state}${outcome.state === "verified" && outcome.flagged ? " (flagged)" : ""} in ${ms} ms`);
+  // pg-boss waits its polling interval between fetches, so a worker takes up to VERIFY_BATCH jobs
+  // a fetch and replays them one after another (one CPU per worker process). A job that throws is
+  // failed on its own (and retried); the others of the batch complete.
+  const queue = verifyQueue();
+  await boss.work<VerifyJob>(queue, { batchSize: VERIFY_BATCH, pollingIntervalSeconds: 0.5 }, async (jobs) => {
+    for (const job of jobs) {
+      const t0 = performance.now();
+      try {
+        const outcome = await verifyAttempt(job.data.attemptId);
+        const ms = (performance.now() - t0).toFixed(0);
+        console.log(`[worker] attempt ${job.data.attemptId}: ${outcome.state}${outcome.state === "verified" && outcome.flagged ? " (flagged)" : ""} in ${ms} ms`);
+      } catch (err) {
+        console.error(`[worker] attempt ${job.data.attemptId}:`, err instanceof Error ? err.message : err);
+        await boss.fail(queue, job.id, { message: err instanceof Error ? err.message : String(err) });
+      }
+    }
   });
   await boss.work<OpenNoticeJob>(openNoticeQueue(), { batchSize: 1, pollingIntervalSeconds: 2 }, async ([job]) => {
     const r = await sendOpenNotice(job.data.assignmentId);

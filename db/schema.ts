@@ -385,6 +385,9 @@ export const attempts = pgTable(
     uniqueIndex("attempts_assignment_trainee_number_unique").on(t.assignmentId, t.traineeId, t.number),
     index("attempts_standings_idx").on(t.assignmentId, t.status, t.score),
     index("attempts_trainee_idx").on(t.traineeId, t.assignmentId),
+    // the standings' change stamp reads the latest verification and start by index (standings.ts)
+    index("attempts_assignment_verified_idx").on(t.assignmentId, t.verifiedAt),
+    index("attempts_assignment_started_idx").on(t.assignmentId, t.startedAt),
     check("attempts_number_positive", sql`${t.number} >= 1`),
   ],
 );

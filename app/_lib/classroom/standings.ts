@@ -2,6 +2,7 @@
 // removed from the roster keeps their attempts, hidden here), best per trainee by default (highest
 // score, the earlier submission on a tie) or every attempt. Staff see names and flags; trainees
 // see what the assignment's visibility allows: full names, initials, or only their own rank.
+import { createHash } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import type { SignedInUser } from "../auth";
@@ -33,16 +34,49 @@ type RawRow = {
   safety_trips: number | null;
 };
 
-export async function standings(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<StandingsResponse | null> {
+/**
+ * What decides the standings' rows, read cheaply: attempts by status and their latest verification,
+ * and the cohort's roster changes. Equal stamps mean equal rows, so the rows are memoised per
+ * process under it (the app servers stay stateless: a memo is only ever a cache of the database).
+ */
+async function stampOf(assignmentId: string): Promise<string> {
+  // each part is an index lookup (migration 0004), not a scan of the assignment's attempts
+  const [r] = await getDb().execute<{ stamp: string }>(sql`
+    select concat_ws('|',
+      (select max(verified_at) from attempts where assignment_id = ${assignmentId}),
+      (select max(created_at) from attempts where assignment_id = ${assignmentId}),
+      (select count(*) from attempts where assignment_id = ${assignmentId} and status = 'submitted'),
+      (select concat_ws(':', count(*), count(removed_at), max(removed_at), max(joined_at))
+         from cohort_memberships m join assignments a on a.cohort_id = m.cohort_id where a.id = ${assignmentId})
+    ) as stamp`);
+  return r.stamp;
+}
+
+/**
+ * An entity tag of what this viewer would be answered: the rows' stamp, the assignment's settings
+ * and who is asking. The route answers 304 to a matching If-None-Match, so a polling standings
+ * page (SWR through the browser's HTTP cache) costs two small queries while nothing changes.
+ */
+export async function standingsEtag(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<string> {
+  const [a] = await getDb().execute<{ v: string }>(sql`select concat_ws('|', title, visibility, due_at, attempt_limit) as v from assignments where id = ${assignmentId}`);
+  const h = createHash("sha256").update([await stampOf(assignmentId), a?.v ?? "", view, staff ? "staff" : viewer.id].join("\n")).digest("base64url");
+  return `"${h.slice(0, 27)}"`;
+}
+
+const MEMO_LIMIT = 200;
+const memo = new Map<string, { stamp: string; rows: RawRow[]; verifying: number }>();
+
+/** Current trainees' verified attempts, best per trainee or all, ranked by score (earlier first on a tie). */
+async function rankedRows(assignmentId: string, view: "best" | "all"): Promise<{ rows: RawRow[]; verifying: number }> {
+  const stamp = await stampOf(assignmentId);
+  const key = `${assignmentId}:${view}`;
+  const hit = memo.get(key);
+  if (hit && hit.stamp === stamp) return hit;
   const db = getDb();
-  const [a] = await db.execute<{ id: string; title: string; visibility: StandingsVisibility; due_at: Date; attempt_limit: number; time_zone: string; kinds: string[] | null }>(
-    sql`select a.id, a.title, a.visibility, a.due_at, a.attempt_limit, c.time_zone,
-               (select array_agg(distinct w->>'kind') from jsonb_array_elements(v.document->'scoring'->'windows') w) as kinds
-        from assignments a join cohorts c on c.id = a.cohort_id join drill_versions v on v.id = a.drill_version_id where a.id = ${assignmentId}`,
-  );
-  if (!a) return null;
-  // current trainees only; attempts used counts every started attempt
-  const rows = await db.execute<RawRow>(sql`
+  // current trainees only; attempts used counts every started attempt; only the summary columns
+  // are read (the official documents are large and the sort does not need them)
+  const rows = [
+    ...(await db.execute<RawRow>(sql`
     with members as (
       select m.user_id from cohort_memberships m join assignments a on a.cohort_id = m.cohort_id
       where a.id = ${assignmentId} and m.role = 'trainee' and m.removed_at is null
@@ -51,7 +85,9 @@ export async function standings(viewer: Viewer, staff: boolean, assignmentId: st
       select trainee_id, count(*)::int as used from attempts where assignment_id = ${assignmentId} group by trainee_id
     ),
     verified as (
-      select t.* from attempts t join members m on m.user_id = t.trainee_id
+      select t.id, t.trainee_id, t.number, t.submitted_at, t.late, t.flagged, t.score, t.raw_score, t.settling_time_s, t.overshoot_c,
+             t.iae, t.recovery_time_s, t.energy_kwh, t.safety_trips
+      from attempts t join members m on m.user_id = t.trainee_id
       where t.assignment_id = ${assignmentId} and t.status = 'verified'
     ),
     chosen as (
@@ -61,11 +97,27 @@ export async function standings(viewer: Viewer, staff: boolean, assignmentId: st
            c.score, c.raw_score, c.settling_time_s, c.overshoot_c, c.iae, c.recovery_time_s, c.energy_kwh, c.safety_trips
     from chosen c join users u on u.id = c.trainee_id left join used on used.trainee_id = c.trainee_id
     order by c.score desc, c.submitted_at asc
-  `);
+  `)),
+  ];
   const [{ verifying }] = await db.execute<{ verifying: number }>(
     sql`select count(*)::int as verifying from attempts t join cohort_memberships m on m.user_id = t.trainee_id join assignments a on a.id = t.assignment_id and a.cohort_id = m.cohort_id
         where t.assignment_id = ${assignmentId} and t.status = 'submitted' and m.removed_at is null`,
   );
+  const entry = { stamp, rows, verifying: Number(verifying) };
+  if (memo.size >= MEMO_LIMIT) memo.delete(memo.keys().next().value!);
+  memo.set(key, entry);
+  return entry;
+}
+
+export async function standings(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<StandingsResponse | null> {
+  const db = getDb();
+  const [a] = await db.execute<{ id: string; title: string; visibility: StandingsVisibility; due_at: Date; attempt_limit: number; time_zone: string; kinds: string[] | null }>(
+    sql`select a.id, a.title, a.visibility, a.due_at, a.attempt_limit, c.time_zone,
+               (select array_agg(distinct w->>'kind') from jsonb_array_elements(v.document->'scoring'->'windows') w) as kinds
+        from assignments a join cohorts c on c.id = a.cohort_id join drill_versions v on v.id = a.drill_version_id where a.id = ${assignmentId}`,
+  );
+  if (!a) return null;
+  const { rows, verifying } = await rankedRows(assignmentId, view);
   const visibility = a.visibility;
   const out: StandingsRow[] = [];
   let rank = 0;
@@ -112,7 +164,7 @@ export async function standings(viewer: Viewer, staff: boolean, assignmentId: st
     viewer: { staff },
     view,
     rankedTrainees,
-    verifying: Number(verifying),
+    verifying,
     rows: out,
     generatedAt: new Date().toISOString(),
   };

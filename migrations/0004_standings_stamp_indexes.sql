@@ -1,0 +1,2 @@
+CREATE INDEX "attempts_assignment_verified_idx" ON "attempts" USING btree ("assignment_id","verified_at");--> statement-breakpoint
+CREATE INDEX "attempts_assignment_started_idx" ON "attempts" USING btree ("assignment_id","created_at");
