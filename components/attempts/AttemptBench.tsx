@@ -16,7 +16,7 @@ import { resolveCutout, resolveSensor } from "@/sim/drill/resolve";
 import type { Drill } from "@/sim/drill/schema";
 import type { AttemptScore } from "@/sim/drill/score";
 import { temperatureToDisplay, type TemperatureUnit } from "@/sim/units";
-import { Trend } from "@/components/trend/Trend";
+import { TrendPanel } from "@/components/bench/TrendPanel";
 import { formatElapsed } from "@/components/trend/format";
 import { TableHead } from "@/components/tables/TableHead";
 import { RubricPanel } from "@/components/assignments/RubricPanel";
@@ -322,23 +322,7 @@ export function AttemptBench({ launch, submit, onSubmitted }: AttemptBenchProps)
         </aside>
 
         <div className="min-w-0 space-y-4">
-          <section className="rounded-sm border border-rule bg-paper-raised p-4">
-            <div className="mb-2 flex flex-wrap items-center gap-4 text-xs">
-              <h2 className="font-semibold uppercase tracking-wide text-ink-faint">Trend</h2>
-              <TraceKey color="var(--color-trace-sp, #4a4a4a)" dashed label="SP" />
-              <label className="flex items-center gap-1">
-                <input type="checkbox" checked={showRaw} onChange={(e) => set({ showRaw: e.target.checked })} />
-                <TraceKey color="#4a6f8f88" label="PV raw" />
-              </label>
-              <TraceKey color="#4b4fa6" label="PV filtered" />
-              <label className="flex items-center gap-1">
-                <input type="checkbox" checked={showTruth} onChange={(e) => set({ showTruth: e.target.checked })} />
-                <TraceKey color="#2f8f86" dotted label="true temp. (training aid)" />
-              </label>
-              <TraceKey color="#d9692b" label="OUT %" />
-            </div>
-            {engine ? <Trend buffer={engine.buffer} events={events} unit={units.temperature} showTruth={showTruth} showRaw={showRaw} /> : null}
-          </section>
+          <TrendPanel engine={engine} />
           <AttemptRunControls
             status={status}
             workerSpeed={speed}
@@ -626,13 +610,3 @@ function KeyboardNote({ operation, pauseAllowed, speeds }: { operation: boolean;
 }
 
 /** A trace's key beside the trend (as on the Bench). */
-function TraceKey({ color, label, dashed, dotted }: { color: string; label: string; dashed?: boolean; dotted?: boolean }) {
-  return (
-    <span className="flex items-center gap-1.5 text-ink-soft">
-      <svg width="18" height="6" aria-hidden="true">
-        <line x1="0" y1="3" x2="18" y2="3" stroke={color} strokeWidth="2" strokeDasharray={dashed ? "5 3" : dotted ? "2 2" : undefined} />
-      </svg>
-      {label}
-    </span>
-  );
-}

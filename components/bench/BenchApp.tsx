@@ -19,7 +19,7 @@ import { RunHistory, type SavedRunFull } from "./saved/RunHistory";
 import { TuningSets } from "./saved/TuningSets";
 import { currentRunRecord, type CurrentRunRecord } from "./current-run";
 import { temperatureToDisplay } from "@/sim/units";
-import { Trend } from "@/components/trend/Trend";
+import { TrendPanel } from "@/components/bench/TrendPanel";
 import { BENCH_DURATION_S, BENCH_START_TUNING, benchDrill, plantDefinitionOf, type BenchPlant } from "./bench-drill";
 import { benchWindows } from "./bench-results";
 import { ControllerForm } from "./ControllerForm";
@@ -265,23 +265,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
       </aside>
 
       <div className="min-w-0 space-y-4">
-        <section className="rounded-sm border border-rule bg-paper-raised p-4">
-          <div className="mb-2 flex flex-wrap items-center gap-4 text-xs">
-            <h2 className="font-semibold uppercase tracking-wide text-ink-faint">Trend</h2>
-            <Legend color="var(--color-trace-sp, #4a4a4a)" dashed label="SP" />
-            <label className="flex items-center gap-1">
-              <input type="checkbox" checked={showRaw} onChange={(e) => set({ showRaw: e.target.checked })} />
-              <Legend color="#4a6f8f88" label="PV raw" />
-            </label>
-            <Legend color="#4b4fa6" label="PV filtered" />
-            <label className="flex items-center gap-1">
-              <input type="checkbox" checked={showTruth} onChange={(e) => set({ showTruth: e.target.checked })} />
-              <Legend color="#2f8f86" dotted label="true temp. (training aid)" />
-            </label>
-            <Legend color="#d9692b" label="OUT %" />
-          </div>
-          {engine ? <Trend buffer={engine.buffer} events={events} unit={units.temperature} showTruth={showTruth} showRaw={showRaw} /> : null}
-        </section>
+        <TrendPanel engine={engine} />
         <LiveRunControls
           status={status}
           speed={speed}
@@ -419,16 +403,5 @@ function EndOfRunNote() {
     <p role="status" className="text-sm text-ink-soft">
       This run has reached the Bench&apos;s {BENCH_DURATION_S / 3600} h length. Reset to start again, or export it first.
     </p>
-  );
-}
-
-function Legend({ color, label, dashed, dotted }: { color: string; label: string; dashed?: boolean; dotted?: boolean }) {
-  return (
-    <span className="flex items-center gap-1.5 text-ink-soft">
-      <svg width="18" height="6" aria-hidden="true">
-        <line x1="0" y1="3" x2="18" y2="3" stroke={color} strokeWidth="2" strokeDasharray={dashed ? "5 3" : dotted ? "2 2" : undefined} />
-      </svg>
-      {label}
-    </span>
   );
 }
