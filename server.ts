@@ -6,12 +6,14 @@
 // worker (worker.ts) as a child process of its own, restarted if it exits.
 import nextEnv from "@next/env";
 import { spawn } from "node:child_process";
+import { setPriority } from "node:os";
 import { createServer } from "node:http";
 import next from "next";
 import { ensureLocalDatabase } from "./db/local-postgres";
 import { startMailCatcher } from "./app/_lib/mail-catcher";
 
 const PEER_HEADER = "x-loopwright-peer"; // read by app/_lib/client-address.ts
+const WORKER_NICENESS = 10;
 
 async function main() {
   const root = process.cwd();
@@ -53,6 +55,14 @@ function superviseWorker(root: string) {
   let restarts = 0;
   const start = () => {
     const child = spawn(process.execPath, [...process.execArgv, "worker.ts"], { cwd: root, env: process.env, stdio: "inherit" });
+    // replays are background work: the web server keeps the CPU first when both want it
+    if (child.pid) {
+      try {
+        setPriority(child.pid, WORKER_NICENESS);
+      } catch {
+        /* not permitted here: the worker runs at normal priority */
+      }
+    }
     child.on("exit", (code, signal) => {
       if (stopping) return;
       restarts++;
