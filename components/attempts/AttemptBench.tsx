@@ -22,7 +22,7 @@ import { TableHead } from "@/components/tables/TableHead";
 import { RubricPanel } from "@/components/assignments/RubricPanel";
 import { ControllerForm } from "@/components/bench/ControllerForm";
 import { BenchEngine } from "@/components/bench/engine-client";
-import { AlarmChip, Faceplate, type FaceplateProps } from "@/components/bench/Faceplate";
+import { Faceplate, FaceplateAlarms, type FaceplateProps } from "@/components/bench/Faceplate";
 import { useBench } from "@/components/bench/store";
 import { BumpPanel } from "@/components/bench/tests/BumpPanel";
 import { RelayPanel } from "@/components/bench/tests/RelayPanel";
@@ -570,23 +570,7 @@ function ReadOnlyFaceplate({ unit, highAlarmC, onCutoutReset }: { unit: Temperat
         <dd data-testid="mode-readout">{snapshot?.mode === "manual" ? "manual" : "auto"}</dd>
       </dl>
       <p className="mt-2 text-[11px] text-ink-faint">This drill does not let you operate the loop: SP, mode and OUT follow the drill&apos;s timeline.</p>
-      <ul className="mt-4 grid grid-cols-3 gap-2 text-center text-[11px] font-semibold uppercase tracking-wide" aria-label="Alarms">
-        <AlarmChip active={highPv} label="High PV" />
-        <AlarmChip active={badPv} label="Bad PV" />
-        <AlarmChip active={tripped} label="Cutout" />
-      </ul>
-      {tripped ? (
-        <div className="mt-3 rounded-sm border border-alarm/50 bg-alarm-soft p-3 text-xs text-alarm" role="alert">
-          <p className="font-semibold">Excess-temperature cutout tripped — heater held off.</p>
-          <p className="mt-1">It releases only on a manual reset, once its own sensor has cooled below the trip point.</p>
-          <button type="button" onClick={onCutoutReset} className="mt-2 rounded-sm border border-alarm px-2 py-1 font-semibold hover:bg-paper">
-            Reset cutout
-          </button>
-        </div>
-      ) : null}
-      <p className="mt-3 text-[11px] leading-snug text-ink-faint">
-        On real equipment the cutout is a separate, independent device with its own sensor; wiring and setting it is work for licensed people under local codes.
-      </p>
+      <FaceplateAlarms highPv={highPv} badPv={badPv} tripped={tripped} onCutoutReset={onCutoutReset} />
     </section>
   );
 }

@@ -141,6 +141,15 @@ export function Faceplate({ snapshot, unit, highAlarmC, onSetpoint, onMode, onMa
         </button>
       </div>
 
+      <FaceplateAlarms highPv={highPv} badPv={badPv} tripped={tripped} onCutoutReset={onCutoutReset} />
+    </section>
+  );
+}
+
+/** The alarm chips, the latched-cutout notice with its reset, and the cutout caution (Bench and attempt Bench). */
+export function FaceplateAlarms({ highPv, badPv, tripped, onCutoutReset }: { highPv: boolean; badPv: boolean; tripped: boolean; onCutoutReset: () => void }) {
+  return (
+    <>
       <ul className="mt-4 grid grid-cols-3 gap-2 text-center text-[11px] font-semibold uppercase tracking-wide" aria-label="Alarms">
         <AlarmChip active={highPv} label="High PV" />
         <AlarmChip active={badPv} label="Bad PV" />
@@ -158,11 +167,11 @@ export function Faceplate({ snapshot, unit, highAlarmC, onSetpoint, onMode, onMa
       <p className="mt-3 text-[11px] leading-snug text-ink-faint">
         On real equipment the cutout is a separate, independent device with its own sensor; wiring and setting it is work for licensed people under local codes.
       </p>
-    </section>
+    </>
   );
 }
 
-export function AlarmChip({ active, label }: { active: boolean; label: string }) {
+function AlarmChip({ active, label }: { active: boolean; label: string }) {
   return (
     <li
       className={`rounded-full border px-2 py-1 ${active ? "border-alarm bg-alarm text-paper" : "border-rule-strong text-ink-faint"}`}
