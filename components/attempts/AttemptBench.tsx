@@ -24,6 +24,7 @@ import { ControllerForm } from "@/components/bench/ControllerForm";
 import { BenchEngine } from "@/components/bench/engine-client";
 import { Faceplate, FaceplateAlarms, type FaceplateProps } from "@/components/bench/Faceplate";
 import { useBench } from "@/components/bench/store";
+import { isArrowKey, operatorKeyAction } from "@/components/bench/operator-keys";
 import { BumpPanel } from "@/components/bench/tests/BumpPanel";
 import { RelayPanel } from "@/components/bench/tests/RelayPanel";
 import { attemptClaimDetail, buildSubmission, lastSampleOf, submissionKeyFor, type AttemptClaim } from "./attempt-claim";
@@ -191,17 +192,10 @@ export function AttemptBench({ launch, submit, onSubmitted }: AttemptBenchProps)
         if (v === undefined) return;
         setSelectedSpeed(v);
         if (s.status === "running") eng.run(v);
-      } else if (!may.operation || !snap) return;
-      else if (e.key === "a" || e.key === "A") eng.act({ type: "mode", mode: snap.mode === "auto" ? "manual" : "auto" });
-      else if (e.key === "ArrowUp" || e.key === "ArrowDown") {
-        e.preventDefault();
-        const dir = e.key === "ArrowUp" ? 1 : -1;
-        if (e.shiftKey) {
-          if (snap.mode === "manual") eng.act({ type: "manual-output", outPercent: Math.min(100, Math.max(0, snap.outPercent + dir)) });
-        } else {
-          const stepC = s.units.temperature === "C" ? 0.5 : 1 / 1.8;
-          eng.act({ type: "setpoint", setpointC: Math.round((snap.setpointC + dir * stepC) * 1000) / 1000 });
-        }
+      } else if (may.operation && snap) {
+        if (isArrowKey(e.key)) e.preventDefault();
+        const action = operatorKeyAction(e, snap, s.units.temperature);
+        if (action) eng.act(action);
       }
     };
     window.addEventListener("keydown", onKey);

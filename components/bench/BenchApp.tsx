@@ -31,6 +31,7 @@ import { HelpOverlay } from "./HelpOverlay";
 import { ResultsTable } from "./ResultsTable";
 import { BENCH_SPEEDS, RunControls } from "./RunControls";
 import { useBench } from "./store";
+import { isArrowKey, operatorKeyAction } from "./operator-keys";
 import { makeReplayBundle } from "@/sim/drill/replay-bundle";
 import { ExperimentsPanel } from "./experiments/ExperimentsPanel";
 import { ExperimentTable } from "./experiments/ExperimentTable";
@@ -194,20 +195,14 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
         if (s.status === "running") eng.pause();
         else eng.run(s.speed);
       } else if (e.key === ".") eng.step(1);
-      else if (e.key === "a" || e.key === "A") snap && eng.act({ type: "mode", mode: snap.mode === "auto" ? "manual" : "auto" });
       else if (e.key === "t" || e.key === "T") s.set({ showTruth: !s.showTruth });
       else if (e.key === "?") s.set({ helpOpen: !s.helpOpen });
       else if (e.key === "Escape") s.set({ helpOpen: false });
       else if (/^[1-5]$/.test(e.key)) eng.run(BENCH_SPEEDS[Number(e.key) - 1].value);
-      else if ((e.key === "ArrowUp" || e.key === "ArrowDown") && snap) {
-        e.preventDefault();
-        const dir = e.key === "ArrowUp" ? 1 : -1;
-        if (e.shiftKey) {
-          if (snap.mode === "manual") eng.act({ type: "manual-output", outPercent: Math.min(100, Math.max(0, snap.outPercent + dir)) });
-        } else {
-          const stepC = s.units.temperature === "C" ? 0.5 : 1 / 1.8;
-          eng.act({ type: "setpoint", setpointC: Math.round((snap.setpointC + dir * stepC) * 1000) / 1000 });
-        }
+      else if (snap) {
+        if (isArrowKey(e.key)) e.preventDefault();
+        const action = operatorKeyAction(e, snap, s.units.temperature);
+        if (action) eng.act(action);
       }
     };
     window.addEventListener("keydown", onKey);
