@@ -7,6 +7,7 @@ import { sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import type { SignedInUser } from "../auth";
 import type { StandingsResponse, StandingsRow, StandingsVisibility } from "./contracts";
+import { summaryOf } from "./attempts";
 
 type Viewer = Pick<SignedInUser, "id">;
 
@@ -24,14 +25,15 @@ type RawRow = {
   submitted_at: Date;
   late: boolean;
   flagged: boolean;
+  // the summary columns, named as summaryOf (attempts.ts) reads them
   score: number;
-  raw_score: number | null;
-  settling_time_s: number | null;
-  overshoot_c: number | null;
+  rawScore: number | null;
+  settlingTimeS: number | null;
+  overshootC: number | null;
   iae: number | null;
-  recovery_time_s: number | null;
-  energy_kwh: number | null;
-  safety_trips: number | null;
+  recoveryTimeS: number | null;
+  energyKWh: number | null;
+  safetyTrips: number | null;
 };
 
 /**
@@ -57,18 +59,19 @@ async function stampOf(assignmentId: string): Promise<string> {
  * and who is asking. The route answers 304 to a matching If-None-Match, so a polling standings
  * page (SWR through the browser's HTTP cache) costs two small queries while nothing changes.
  */
-export async function standingsEtag(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<string> {
+export async function standingsEtag(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<{ etag: string; stamp: string }> {
   const [a] = await getDb().execute<{ v: string }>(sql`select concat_ws('|', title, visibility, due_at, attempt_limit) as v from assignments where id = ${assignmentId}`);
-  const h = createHash("sha256").update([await stampOf(assignmentId), a?.v ?? "", view, staff ? "staff" : viewer.id].join("\n")).digest("base64url");
-  return `"${h.slice(0, 27)}"`;
+  const stamp = await stampOf(assignmentId);
+  const h = createHash("sha256").update([stamp, a?.v ?? "", view, staff ? "staff" : viewer.id].join("\n")).digest("base64url");
+  return { etag: `"${h.slice(0, 27)}"`, stamp };
 }
 
 const MEMO_LIMIT = 200;
 const memo = new Map<string, { stamp: string; rows: RawRow[]; verifying: number }>();
 
 /** Current trainees' verified attempts, best per trainee or all, ranked by score (earlier first on a tie). */
-async function rankedRows(assignmentId: string, view: "best" | "all"): Promise<{ rows: RawRow[]; verifying: number }> {
-  const stamp = await stampOf(assignmentId);
+async function rankedRows(assignmentId: string, view: "best" | "all", knownStamp?: string): Promise<{ rows: RawRow[]; verifying: number }> {
+  const stamp = knownStamp ?? (await stampOf(assignmentId));
   const key = `${assignmentId}:${view}`;
   const hit = memo.get(key);
   if (hit && hit.stamp === stamp) return hit;
@@ -94,7 +97,8 @@ async function rankedRows(assignmentId: string, view: "best" | "all"): Promise<{
       ${view === "best" ? sql`select distinct on (trainee_id) * from verified order by trainee_id, score desc, submitted_at asc` : sql`select * from verified`}
     )
     select c.id as attempt_id, c.trainee_id, u.display_name, c.number, coalesce(used.used, 0) as used, c.submitted_at, c.late, c.flagged,
-           c.score, c.raw_score, c.settling_time_s, c.overshoot_c, c.iae, c.recovery_time_s, c.energy_kwh, c.safety_trips
+           c.score, c.raw_score as "rawScore", c.settling_time_s as "settlingTimeS", c.overshoot_c as "overshootC", c.iae,
+           c.recovery_time_s as "recoveryTimeS", c.energy_kwh as "energyKWh", c.safety_trips as "safetyTrips"
     from chosen c join users u on u.id = c.trainee_id left join used on used.trainee_id = c.trainee_id
     order by c.score desc, c.submitted_at asc
   `)),
@@ -109,7 +113,8 @@ async function rankedRows(assignmentId: string, view: "best" | "all"): Promise<{
   return entry;
 }
 
-export async function standings(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all"): Promise<StandingsResponse | null> {
+/** `stamp`: the change stamp already read for this request (standingsEtag), so it is not read twice. */
+export async function standings(viewer: Viewer, staff: boolean, assignmentId: string, view: "best" | "all", stamp?: string): Promise<StandingsResponse | null> {
   const db = getDb();
   const [a] = await db.execute<{ id: string; title: string; visibility: StandingsVisibility; due_at: Date; attempt_limit: number; time_zone: string; kinds: string[] | null }>(
     sql`select a.id, a.title, a.visibility, a.due_at, a.attempt_limit, c.time_zone,
@@ -117,7 +122,7 @@ export async function standings(viewer: Viewer, staff: boolean, assignmentId: st
         from assignments a join cohorts c on c.id = a.cohort_id join drill_versions v on v.id = a.drill_version_id where a.id = ${assignmentId}`,
   );
   if (!a) return null;
-  const { rows, verifying } = await rankedRows(assignmentId, view);
+  const { rows, verifying } = await rankedRows(assignmentId, view, stamp);
   const visibility = a.visibility;
   const out: StandingsRow[] = [];
   let rank = 0;
@@ -138,16 +143,7 @@ export async function standings(viewer: Viewer, staff: boolean, assignmentId: st
       submittedAt: new Date(r.submitted_at).toISOString(),
       late: r.late,
       flagged: staff ? r.flagged : false,
-      summary: {
-        score: r.score,
-        rawScore: r.raw_score ?? r.score,
-        settlingTimeS: r.settling_time_s,
-        overshootC: r.overshoot_c,
-        iae: r.iae ?? 0,
-        recoveryTimeS: r.recovery_time_s,
-        energyKWh: r.energy_kwh ?? 0,
-        safetyTrips: r.safety_trips ?? 0,
-      },
+      summary: summaryOf(r),
     });
   });
   const rankedTrainees = view === "best" ? rows.length : new Set(rows.map((r) => r.trainee_id)).size;

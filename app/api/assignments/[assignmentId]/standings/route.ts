@@ -13,9 +13,10 @@ export async function GET(request: Request, { params }: { params: Promise<{ assi
   const cohortId = (await assignmentCohortId(user, assignmentId))!;
   const staff = user.role !== "trainee" && (await cohortAccess(user, cohortId, "instructor"));
   // private, revalidated every time: the browser keeps the last answer and asks with If-None-Match
-  const headers = { "cache-control": "private, no-cache", etag: await standingsEtag(user, staff, assignmentId, view), vary: "cookie" };
-  if (request.headers.get("if-none-match") === headers.etag) return new Response(null, { status: 304, headers });
-  const body = await standings(user, staff, assignmentId, view);
+  const { etag, stamp } = await standingsEtag(user, staff, assignmentId, view);
+  const headers = { "cache-control": "private, no-cache", etag, vary: "cookie" };
+  if (request.headers.get("if-none-match") === etag) return new Response(null, { status: 304, headers });
+  const body = await standings(user, staff, assignmentId, view, stamp);
   if (!body) return Response.json({ error: "No such assignment." }, { status: 404 });
   return Response.json(body, { headers });
 }
