@@ -6,7 +6,7 @@ const nextConfig = {
   // build does not check everything a second time. A plain `next build` still type-checks.
   typescript: { ignoreBuildErrors: process.env.LOOPWRIGHT_TYPECHECKED === "1" },
   // Server-only packages with native parts or Node APIs stay out of the bundle.
-  serverExternalPackages: ["@node-rs/argon2", "postgres", "nodemailer", "pg-boss"],
+  serverExternalPackages: ["@node-rs/argon2", "postgres", "nodemailer", "pg-boss", "pdfkit"],
   experimental: {
     serverActions: {
       // Forged posts from another origin are refused by Next's Origin/Host check; a reverse

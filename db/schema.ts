@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import {
   bigint,
+  customType,
   boolean,
   check,
   doublePrecision,
@@ -171,6 +172,35 @@ export type User = typeof users.$inferSelect;
 
 export const plantOrigin = pgEnum("plant_origin", ["physical", "twin"]);
 
+/** Raw bytes (bytea), read and written as a Node Buffer. */
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
+
+// ---- Twins (migration 0005_twins_and_records) ----
+// A data upload is a bump-test log exactly as the technician uploaded it: the raw bytes and their
+// SHA-256, so an identification can always be redone from the original. The mapping (columns,
+// time format, decimal mark, unit) it was read with is kept beside it. A twin is a plant row with
+// origin "twin" whose source_upload_id points here; uploads are never changed once written.
+
+export const dataUploads = pgTable(
+  "data_uploads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: organizationRef(),
+    ownerId: ownerRef(),
+    fileName: text("file_name").notNull(),
+    byteSize: integer("byte_size").notNull(),
+    /** lowercase hex SHA-256 of `content` */
+    sha256: text("sha256").notNull(),
+    content: bytea("content").notNull(),
+    /** a LogMapping (sim/import/log-mapping.ts) */
+    mapping: jsonb("mapping").$type<Record<string, unknown>>().notNull(),
+    /** what was read: rows, time span, sampling, noise and quantization (sim/import) */
+    summary: jsonb("summary").$type<Record<string, unknown>>().notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("data_uploads_owner_idx").on(t.ownerId, t.createdAt), check("data_uploads_sha256_hex", sql`${t.sha256} ~ '^[0-9a-f]{64}$'`)],
+);
+
 export const plants = pgTable(
   "plants",
   {
@@ -184,10 +214,18 @@ export const plants = pgTable(
     origin: plantOrigin("origin").notNull().default("physical"),
     /** readable by every signed-in user of the organisation; only the owner edits */
     shared: boolean("shared").notNull().default(false),
+    /** a twin's bump-test log (migration 0005); null for plants described physically */
+    sourceUploadId: uuid("source_upload_id").references(() => dataUploads.id, { onDelete: "restrict" }),
+    /** a twin's identification: the candidates with fit quality, the chosen one, noise and quantization */
+    identification: jsonb("identification").$type<Record<string, unknown>>(),
     createdAt: createdAt(),
     updatedAt: timestamp("updated_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
   },
-  (t) => [index("plants_owner_idx").on(t.ownerId), index("plants_org_shared_idx").on(t.organizationId, t.shared)],
+  (t) => [
+    index("plants_owner_idx").on(t.ownerId),
+    index("plants_org_shared_idx").on(t.organizationId, t.shared),
+    check("plants_twin_has_source", sql`${t.origin} <> 'twin' OR ${t.sourceUploadId} IS NOT NULL OR ${t.identification} IS NULL`),
+  ],
 );
 
 export const tuningSets = pgTable(
@@ -410,3 +448,43 @@ export const attemptFeedback = pgTable(
 
 export type AssignmentRow = typeof assignments.$inferSelect;
 export type AttemptRow = typeof attempts.$inferSelect;
+
+export type DataUploadRow = typeof dataUploads.$inferSelect;
+
+// ---- Tuning records (migration 0005_twins_and_records) ----
+// The hand-over document of one loop. `document` is a snapshot validated by
+// app/_lib/records/record-document.ts: the plant as it was, the model, the tuning, the tests with
+// their drills, seeds and results. Trends are not stored: the server re-runs each test (the engine
+// is deterministic) for the page, the PDF and the traces CSV. A signed-off record is frozen.
+
+export const tuningRecords = pgTable(
+  "tuning_records",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: organizationRef(),
+    ownerId: ownerRef(),
+    plantRef: text("plant_ref").notNull(),
+    /** the stored plant, when the record is for one (presets have none) */
+    plantId: uuid("plant_id").references(() => plants.id, { onDelete: "set null" }),
+    plantName: text("plant_name").notNull(),
+    tuningSetId: uuid("tuning_set_id").references(() => tuningSets.id, { onDelete: "set null" }),
+    title: text("title").notNull(),
+    notes: text("notes").notNull().default(""),
+    document: jsonb("document").$type<Record<string, unknown>>().notNull(),
+    engineVersion: text("engine_version").notNull(),
+    signedOffBy: text("signed_off_by"),
+    signedOffOn: text("signed_off_on"),
+    signedOffAt: timestamp("signed_off_at", { withTimezone: true, mode: "date" }),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("tuning_records_org_idx").on(t.organizationId, t.createdAt),
+    index("tuning_records_owner_idx").on(t.ownerId),
+    index("tuning_records_plant_idx").on(t.plantRef),
+    check("tuning_records_signoff_complete", sql`(${t.signedOffBy} IS NULL) = (${t.signedOffOn} IS NULL)`),
+    check("tuning_records_signoff_date", sql`${t.signedOffOn} IS NULL OR ${t.signedOffOn} ~ '^[0-9]{4}-[0-9]{2}-[0-9]{2}$'`),
+  ],
+);
+
+export type TuningRecordRow = typeof tuningRecords.$inferSelect;
