@@ -9,3 +9,4 @@ export * from "./fit-quality";
 export * from "./fit-models";
 export * from "./identify-step";
 export * from "./csv-record";
+export * from "./quantization-estimate";
