@@ -23,7 +23,7 @@ type Role = "time" | "out" | "pv" | "sp" | "mode";
 const NAMES: Record<Role, string[]> = {
   time: ["time", "t", "timestamp", "date", "datetime", "dateandtime", "datum", "zeit", "elapsed", "elapsedtime", "times", "timesec", "seconds", "secs", "sec", "s"],
   out: ["out", "output", "outpercent", "outpct", "op", "mv", "co", "power", "heater", "heateroutput", "manipulated"],
-  pv: ["pv", "pvc", "pvf", "temperature", "temp", "tempc", "tempf", "processvalue", "pvfiltered", "pvraw", "measured", "y"],
+  pv: ["pv", "pvc", "pvf", "temperature", "temp", "tempc", "tempf", "processvalue", "pvraw", "pvfiltered", "measured", "y"],
   sp: ["sp", "setpoint", "spc", "spf", "target"],
   mode: ["mode", "automan", "am", "manauto", "controlmode", "automanual"],
 };

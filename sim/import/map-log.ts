@@ -2,8 +2,9 @@
  * A read table through its mapping into a MappedLog: every cell of the mapped columns is checked,
  * and the first bad one is refused with its file line, column and text, e.g.
  * `line 14, column "PV [°C]": "12,4x" is not a number`.
- * Time becomes seconds from the first row; °F becomes °C by t/°C = (t/°F − 32)·5/9 (NIST SP 811,
- * 2008, §B.9 and ITS-90's relation of the two scales).
+ * Time becomes seconds from the first row; °F becomes °C by t/°C = (t/°F − 32)·5/9, the exact
+ * relation of the two scales (NIST SP 811, 2008 edition, Appendix B; ITS-90 temperatures; section
+ * from memory).
  */
 import type { ImportRefusal, LogMapping, MappedLog } from "./log-mapping";
 import { parseNumber } from "./parse-number";

@@ -1,7 +1,7 @@
 /**
  * Reading an uploaded log's text into a table of trimmed cells, each row with its file line.
  * Papaparse does the splitting (quotes, line endings); we add what it leaves to us:
- * - a UTF-8 byte-order mark is stripped;
+ * - a UTF-8 byte-order mark is stripped; CRLF and lone CR line ends are read as LF;
  * - empty lines and lines starting with '#' (comments) are skipped;
  * - "auto" delimiter: papaparse's own guess picks ',' for a decimal-comma file ("1,5;20,3"), so we
  *   choose among tab, ';' and ',' by the consistency of field counts on the first lines, preferring
@@ -53,7 +53,7 @@ function sampleLines(text: string): string[] {
 
 /** Delimiter whose field counts are the same on all sampled lines (and above one); else the most consistent. */
 export function guessDelimiter(text: string): Delimiter {
-  const lines = sampleLines(text);
+  const lines = sampleLines(text.replace(/\r\n?/g, "\n"));
   if (!lines.length) return ",";
   let best: { d: Delimiter; score: number } = { d: ",", score: -1 };
   for (const d of CANDIDATES) {
@@ -95,25 +95,35 @@ function refuse(code: ImportRefusal["code"], message: string): ImportRefusal {
 }
 
 export function readLogTable(text: string, opts: ReadLogOptions): { ok: true; table: LogTable } | ImportRefusal {
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  // one line break per line (CRLF, LF or a lone CR), so line numbers are counted on "\n" alone
+  const body = (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text).replace(/\r\n?/g, "\n");
   if (sampleLines(body).length === 0) return refuse("empty", "the file is empty or holds only comment lines (starting with #): there is no data to read");
   const delimiter: Delimiter = opts.delimiter === "auto" ? guessDelimiter(body) : opts.delimiter;
   const starts = lineStarts(body);
   const rows: string[][] = [];
   const lineNumbers: number[] = [];
   let quoteError: number | null = null;
+  const blank = new RegExp(`^[\\s${delimiter === "\t" ? "\\t" : delimiter}]*$`);
+  // a row starts where the previous one ended, after the lines papaparse skipped (blank, comment)
+  let prevEnd = 0;
+  const rowStartLine = (): number => {
+    let s = prevEnd;
+    for (;;) {
+      const line = lineOf(starts, s);
+      const lineEnd = line < starts.length ? starts[line] - 1 : body.length;
+      const rest = body.slice(s, lineEnd).replace(/\r$/, "");
+      if (line >= starts.length || !(blank.test(rest) || rest.trimStart().startsWith("#"))) return line;
+      s = starts[line];
+    }
+  };
   Papa.parse<string[]>(body, {
     delimiter,
     skipEmptyLines: "greedy",
     comments: "#",
     step: (r) => {
+      const line = rowStartLine();
+      prevEnd = r.meta.cursor;
       const cells = r.data;
-      // the row ends just before the cursor; step back over the line break, then over the breaks inside quoted cells
-      let end = r.meta.cursor - 1;
-      while (end > 0 && (body[end] === "\n" || body[end] === "\r")) end--;
-      let inner = 0;
-      for (const c of cells) for (let i = 0; i < c.length; i++) if (c.charCodeAt(i) === 10) inner++;
-      const line = Math.max(1, lineOf(starts, Math.max(0, end)) - inner);
       if (quoteError === null && r.errors.some((e) => e.type === "Quotes")) quoteError = line;
       const trimmed = cells.map((c) => c.trim());
       if (trimmed.every((c) => c === "")) return; // a line of bare delimiters
