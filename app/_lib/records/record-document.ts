@@ -7,6 +7,7 @@
 //   server (results and a decimated trend), and the robustness margins of the chosen tuning.
 import { z } from "zod";
 import { controllerConfigSchema } from "@/sim/control/config";
+import { driveConfigSchema } from "@/sim/actuator/drive-config";
 import { drillSchema } from "@/sim/drill/schema";
 import { plantDefinitionSchema } from "@/sim/plant/plant-definition";
 
@@ -125,9 +126,25 @@ export const recordDocumentSchema = z
     controller: controllerConfigSchema,
     /** gain margin (ratio), phase margin (°), Ms and the verdict; null without a model */
     margins: z
-      .object({ gainMargin: finite.nullable(), phaseMarginDeg: finite.nullable(), ms: finite.nullable(), verdict: z.string() })
+      .object({
+        gainMargin: finite.nullable(),
+        phaseMarginDeg: finite.nullable(),
+        ms: finite.nullable(),
+        verdict: z.string(),
+        /** extra dead time the loop tolerates before it oscillates, s (null: unlimited) */
+        delayMarginS: finite.nullable().optional(),
+        /** the toolkit's plain-language reading (sim/tuning/robustness/assessment.ts) */
+        messages: z.array(z.string()).optional(),
+        /** lags the margins include beyond the model: PV filter, sensor, ½ sample, ½ heater cycle */
+        lags: z
+          .object({ pvFilterTauS: finite, sensorLagS: finite, sampleTimeS: finite, cycleTimeS: finite })
+          .strict()
+          .optional(),
+      })
       .strict()
       .nullable(),
+    /** the final element the proof tests ran with (the first test's drive); null without proof tests */
+    drive: driveConfigSchema.nullable().optional(),
     powerCurve: powerCurveTestSchema.nullable(),
     relay: relayTestSchema.nullable(),
     proofTests: z.array(proofTestStoredSchema),
