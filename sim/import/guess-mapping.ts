@@ -1,7 +1,7 @@
 /**
  * A first guess of a log's mapping, offered to the technician to confirm or correct:
  * - columns by header name (case, spaces, punctuation and units in brackets ignored);
- *   without a header, or when the "header" is all numbers, the first three columns are time, OUT, PV;
+ *   without a header, or when the "header" starts with three numbers, the first three columns are time, OUT, PV;
  * - temperature unit "F" when the PV (or SP) header says °F / degF / [F];
  * - decimal mark "," when the delimiter is ';' or tab and number cells are written "12,5";
  * - time format "timestamp" when the time cells read as date-times.
@@ -75,8 +75,9 @@ function firstFree(count: number, taken: (number | null)[]): number {
 export function guessMapping(table: LogTable, opts: GuessOptions = {}): LogMapping {
   const sample = table.rows.slice(0, opts.sampleRows ?? 50);
   const headers = table.headers;
-  // a "header" of numbers only is a first data row
-  const headerRow = headers !== null && !headers.every((h) => isNumberCell(h, ".") || isNumberCell(h, ","));
+  // a "header" whose first three cells are numbers or date-times is a first data row
+  const isData = (h: string) => isNumberCell(h, ".") || isNumberCell(h, ",") || parseTimestamp(h) !== null;
+  const headerRow = headers !== null && !headers.slice(0, 3).every(isData);
   let cols: Record<Role, number | null>;
   if (headerRow && headers) {
     cols = findColumns(headers);
