@@ -186,11 +186,16 @@ export function proofRows(t: ProofTestStored): string[][] {
   return rows;
 }
 
+/** Which drill a test ran: a stored version, or the flow's own timeline with the drill's revision. */
+export function drillVersionText(t: ProofTestStored): string {
+  return t.drillVersion ? `${t.drillVersion.title}, version ${t.drillVersion.version}` : `${t.drill.title} (ad-hoc timeline, revision ${t.drill.revision})`;
+}
+
 export function proofFacts(t: ProofTestStored): Figure[] {
-  const version = t.drillVersion ? `${t.drillVersion.title}, version ${t.drillVersion.version}` : `ad-hoc timeline (revision ${t.drill.revision})`;
+  const summary = tuningSummary(t.controller);
   return [
-    { key: "drill", label: "Drill", value: version },
-    { key: "tuning", label: "Tuning", value: `${t.tuningLabel}: ${tuningSummary(t.controller)}` },
+    { key: "drill", label: "Drill", value: drillVersionText(t) },
+    { key: "tuning", label: "Tuning", value: summary.startsWith(`${t.tuningLabel} `) ? summary : `${t.tuningLabel}: ${summary}` },
     { key: "duration", label: "Duration", value: `${num(t.durationS / 60, 4)} min` },
     { key: "seed", label: "Seed", value: String(t.seed) },
     { key: "trips", label: "Cutout trips", value: String(t.safetyTrips) },

@@ -1,0 +1,24 @@
+import { guardRoute } from "@/app/_lib/guard";
+import { recordDetail } from "@/app/_lib/records/record-queries";
+import { recordFileName } from "@/app/_lib/records/record-filename";
+import { recordPdf } from "@/app/_lib/records/record-pdf";
+
+// GET /api/records/:recordId/pdf — the tuning record as a PDF, for signed-in users of the
+// record's organisation (404 for a missing or foreign record alike).
+export const runtime = "nodejs"; // pdfkit reads its font metrics from disk
+
+export async function GET(_request: Request, { params }: { params: Promise<{ recordId: string }> }) {
+  const { recordId } = await params;
+  const user = await guardRoute();
+  if (user instanceof Response) return user;
+  const detail = await recordDetail(user, recordId);
+  if (!detail) return Response.json({ error: "No such record." }, { status: 404 });
+  const pdf = await recordPdf(detail);
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `attachment; filename="${recordFileName(detail.title, "", "pdf")}"`,
+      "cache-control": "private, no-store",
+    },
+  });
+}
