@@ -4,7 +4,8 @@
  * the middle, the faceplate, disturbances and tests on the right. The engine runs in a Web
  * Worker; this component only sends commands and shows what streams back.
  */
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
+import Link from "next/link";
 import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
 import { drillSchema } from "@/sim/drill/schema";
 import { noiseSigmaC, resolveCutout, resolvePlant, resolveSensor } from "@/sim/drill/resolve";
@@ -18,7 +19,7 @@ import { PlantPicker } from "./plants/PlantPicker";
 import { RunHistory, type SavedRunFull } from "./saved/RunHistory";
 import { TuningSets } from "./saved/TuningSets";
 import { currentRunRecord, type CurrentRunRecord } from "./current-run";
-import { temperatureToDisplay } from "@/sim/units";
+import { temperatureDeltaToDisplay, temperatureToDisplay } from "@/sim/units";
 import { TrendPanel } from "@/components/bench/TrendPanel";
 import { BENCH_DURATION_S, BENCH_START_TUNING, benchDrill, plantDefinitionOf, type BenchPlant } from "./bench-drill";
 import { benchWindows } from "./bench-results";
@@ -30,7 +31,9 @@ import { useShallow } from "zustand/react/shallow";
 import { HelpOverlay } from "./HelpOverlay";
 import { ResultsTable } from "./ResultsTable";
 import { BENCH_SPEEDS, RunControls } from "./RunControls";
-import { useBench } from "./store";
+import { NO_FINDINGS, useBench, type BenchPanelId, type ProofRun } from "./store";
+import { sensorMatching, type SensorFromData } from "./sensor-from-data";
+import type { ExperimentState } from "./experiments/use-experiments";
 import { isArrowKey, operatorKeyAction } from "./operator-keys";
 import { makeReplayBundle } from "@/sim/drill/replay-bundle";
 import { ExperimentsPanel } from "./experiments/ExperimentsPanel";
@@ -41,6 +44,7 @@ import { useExperiments } from "./experiments/use-experiments";
 import { BumpPanel } from "./tests/BumpPanel";
 import { PowerCurvePanel } from "./tests/PowerCurvePanel";
 import { RelayPanel } from "./tests/RelayPanel";
+import type { ProposalOrigin } from "./tests/ProposalView";
 import type { MapMetric } from "@/sim/experiments/tuning-map";
 
 const DEFAULT_SEED = 20261201;
@@ -67,17 +71,48 @@ function defaultTripC(def: PlantDefinition): number {
 }
 
 function startingSetpoint(def: PlantDefinition): number {
+  // a twin starts where it was identified
+  if (def.kind === "transfer-function") return def.operatingPoint.temperatureC;
   const amb = steadyStateTemperatureC(def, 0);
   const top = steadyStateTemperatureC(def, 100);
   return top - amb > 70 ? 60 : Math.round(amb + 0.5 * (top - amb));
 }
 
-export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPresetId?: string }) {
+/** A stored plant the Bench opens with (the pre-commissioning flow's plant). */
+export interface BenchStartPlant {
+  ref: string;
+  title: string;
+  definition: PlantDefinition;
+  origin: "physical" | "twin";
+  /** a twin's noise σ and quantization step read from its uploaded log, when known */
+  sensorFromData: SensorFromData | null;
+}
+
+/** Sensor range for a stored plant: the default 0–200 °C, widened when the cutout sits near its top. */
+function rangeHighFor(tripC: number): number {
+  return tripC > 190 ? Math.ceil((tripC + 50) / 100) * 100 : 200;
+}
+
+function storedPlant(def: PlantDefinition, sensorFromData: SensorFromData | null = null): BenchPlant {
+  const tripC = defaultTripC(def);
+  return { kind: "stored", definition: def, cutoutTripC: tripC, ...(sensorFromData ? { sensor: sensorMatching(sensorFromData, rangeHighFor(tripC)).sensor } : {}) };
+}
+
+export interface BenchAppProps {
+  initialPresetId?: string;
+  startPlant?: BenchStartPlant;
+  /** the pre-commissioning flow: its panel above the Bench and its site proof-test editor in the experiments */
+  commissioning?: { header: ReactNode; proofEditor: (baseDrill: DrillInput) => ReactNode };
+}
+
+export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id, startPlant, commissioning }: BenchAppProps) {
   const engineRef = useRef<BenchEngine | null>(null);
   const [engine, setEngine] = useState<BenchEngine | null>(null);
-  const [plantRef, setPlantRef] = useState(`preset:${initialPresetId}`);
-  const [plant, setPlant] = useState<BenchPlant>({ kind: "preset", presetId: initialPresetId });
-  const [plantTitle, setPlantTitle] = useState(PLANT_PRESETS.find((p) => p.id === initialPresetId)?.title ?? "");
+  const initialPlant: BenchPlant = startPlant ? storedPlant(startPlant.definition, startPlant.sensorFromData) : { kind: "preset", presetId: initialPresetId };
+  const initialTitle = startPlant ? startPlant.title : (PLANT_PRESETS.find((p) => p.id === initialPresetId)?.title ?? "");
+  const [plantRef, setPlantRef] = useState(startPlant ? startPlant.ref : `preset:${initialPresetId}`);
+  const [plant, setPlant] = useState<BenchPlant>(initialPlant);
+  const [plantTitle, setPlantTitle] = useState(initialTitle);
   const [controller, setController] = useState<ControllerConfig>(() => controllerConfigSchema.parse(BENCH_START_TUNING));
   const [seed] = useState(DEFAULT_SEED);
   const [editing, setEditing] = useState<null | { plant?: { id: string; name: string; description: string; definition: PlantDefinition } }>(null);
@@ -88,7 +123,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
     },
     [seed],
   );
-  const [run, setRun] = useState<BenchRun>(() => freshRun({ kind: "preset", presetId: initialPresetId }, PLANT_PRESETS.find((p) => p.id === initialPresetId)?.title ?? "", controllerConfigSchema.parse(BENCH_START_TUNING)));
+  const [run, setRun] = useState<BenchRun>(() => freshRun(initialPlant, initialTitle, controllerConfigSchema.parse(BENCH_START_TUNING)));
   // the snapshot changes at chunk rate: only the small live components below subscribe to it
   const { status, speed, events, units, showTruth, showRaw, helpOpen, engineVersion, error, set } = useBench(
     useShallow((s) => ({ status: s.status, speed: s.speed, events: s.events, units: s.units, showTruth: s.showTruth, showRaw: s.showRaw, helpOpen: s.helpOpen, engineVersion: s.engineVersion, error: s.error, set: s.set })),
@@ -118,8 +153,18 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   }, [engine, run]);
   const startController = run.controller;
 
+  // what the tests found belongs to one plant
+  useEffect(() => {
+    useBench.getState().set({ findings: NO_FINDINGS, siteProof: null, savedTuningSet: null });
+  }, [plantRef]);
+
   const choosePlant = (ref: string, def: PlantDefinition, title: string) => {
-    const next: BenchPlant = ref.startsWith("preset:") ? { kind: "preset", presetId: ref.slice("preset:".length) } : { kind: "stored", definition: def, cutoutTripC: defaultTripC(def) };
+    // the pre-commissioning flow is for one plant: another plant means another flow (or the free Bench)
+    if (commissioning && ref !== plantRef) {
+      window.location.assign(ref.startsWith("plant:") ? `/commissioning/${ref.slice("plant:".length)}` : "/bench");
+      return;
+    }
+    const next: BenchPlant = ref.startsWith("preset:") ? { kind: "preset", presetId: ref.slice("preset:".length) } : ref === startPlant?.ref ? storedPlant(def, startPlant.sensorFromData) : storedPlant(def);
     setPlantRef(ref);
     setPlant(next);
     setPlantTitle(title);
@@ -144,6 +189,64 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
     setController(cfg);
     act?.act({ type: "tuning", controller: cfg });
   };
+  const applyProposal = (source: "relay" | "bump") => (cfg: ControllerConfig, origin?: ProposalOrigin) => {
+    loadTuning(cfg);
+    if (origin) {
+      useBench.getState().note({
+        applied: { source, rule: origin.rule, controllerType: origin.controllerType, model: origin.model, controller: controllerConfigSchema.parse({ ...controller, ...cfg }) },
+        ...(source === "relay" ? { relayRule: origin.rule } : {}),
+      });
+    }
+  };
+
+  // a finished comparison on the site proof test is kept run by run, as it was run
+  const recordedExperiment = useRef<ExperimentState | null>(null);
+  useEffect(() => {
+    const st = experiments.state;
+    const proof = st.meta?.proof;
+    if (st.status !== "done" || st.kind !== "compare" || !proof || recordedExperiment.current === st) return;
+    recordedExperiment.current = st;
+    const { findings, note } = useBench.getState();
+    const stamp = Date.now().toString(36);
+    const runs: ProofRun[] = st.rows.map((r) => {
+      const tuningLabel = r.label.split(" ")[0];
+      const overshoots = r.results.windows.map((w) => w.trueTemperature.overshootPct).filter((v): v is number => v != null);
+      return {
+        key: `${stamp}-${r.index}`,
+        label: `${proof.label} · ${tuningLabel}`.slice(0, 80),
+        tuningLabel,
+        drill: proof.drill,
+        drillVersion: proof.drillVersion,
+        controller: r.controller,
+        seed: proof.seed,
+        iae: Number.isFinite(r.results.wholeRun.trueTemperature.iae) ? r.results.wholeRun.trueTemperature.iae : null,
+        overshootPct: overshoots.length ? Math.max(...overshoots) : null,
+      };
+    });
+    note({ proofRuns: [...findings.proofRuns, ...runs].slice(-16) });
+  }, [experiments.state]);
+
+  // the hand-over path asks for a panel: open its tab, then bring it into view and focus it
+  const panelRefs = {
+    "power-curve": useRef<HTMLDivElement>(null),
+    relay: useRef<HTMLDivElement>(null),
+    bump: useRef<HTMLDivElement>(null),
+    proof: useRef<HTMLDivElement>(null),
+    "tuning-sets": useRef<HTMLElement>(null),
+  } satisfies Record<BenchPanelId, unknown>;
+  const focus = useBench((s) => s.focus);
+  useEffect(() => {
+    if (!focus) return;
+    const tab = ({ "power-curve": "bump", bump: "bump", relay: "relay", proof: "experiments", "tuning-sets": null } as const)[focus.panel];
+    if (tab) setTestsTab(tab);
+    const id = requestAnimationFrame(() => {
+      const el = panelRefs[focus.panel].current;
+      el?.scrollIntoView?.({ block: "start", behavior: "smooth" });
+      el?.focus({ preventScroll: true });
+    });
+    return () => cancelAnimationFrame(id);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [focus]);
   const compareSaved = (runs: SavedRunFull[]) =>
     experiments.start(
       "saved",
@@ -220,8 +323,21 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
   }, [sensor, cutout]);
 
   const t = (c: number) => `${temperatureToDisplay(c, units.temperature).toFixed(1)} °${units.temperature}`;
+  const dT = (c: number) => `${String(+temperatureDeltaToDisplay(c, units.temperature).toPrecision(2))} °${units.temperature}`;
+  // a twin's chain carries its log's noise and step; the Bench's ADC can only match the step to whole bits
+  const data = plantRef === startPlant?.ref ? startPlant.sensorFromData : null;
+  const match = data ? sensorMatching(data, sensor.transmitter.rangeHighC) : null;
+  const sensorNote =
+    data && match
+      ? [
+          data.noiseSigmaC !== null ? `σ ≈ ${dT(data.noiseSigmaC)}` : null,
+          data.quantizationStepC !== null ? `step ${dT(data.quantizationStepC)}${match.stepC !== null && match.bits !== null ? ` (the Bench's ${match.bits}-bit input: ${dT(match.stepC)})` : ""}` : null,
+        ]
+          .filter(Boolean)
+          .join(", ")
+      : null;
 
-  return (
+  const grid = (
     <div className="grid gap-4 xl:grid-cols-[21rem_minmax(0,1fr)_20rem]">
       <aside className="space-y-4">
         <section aria-label="Plant" className="rounded-sm border border-rule bg-paper-raised p-4 text-sm">
@@ -229,6 +345,16 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           <button type="button" onClick={() => setEditing({})} className="mt-2 text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
             Describe a new plant…
           </button>
+          {!commissioning && plantRef.startsWith("plant:") ? (
+            <Link href={`/commissioning/${plantRef.slice("plant:".length)}`} className="ml-3 mt-2 inline-block text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+              Pre-commission this plant
+            </Link>
+          ) : null}
+          {sensorNote ? (
+            <p className="mt-2 text-xs text-ink-soft" data-testid="twin-sensor-note">
+              Sensor noise from the uploaded data: {sensorNote}
+            </p>
+          ) : null}
           <dl className="num mt-3 grid grid-cols-[1fr_auto] gap-y-1 text-xs">
             <dt className="font-sans text-ink-soft">Time to 63 %</dt>
             <dd>{(figures.timeTo63PercentS / 60).toFixed(1)} min</dd>
@@ -254,8 +380,8 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
             onRestart={restartWith}
           />
         </section>
-        <section aria-label="Tuning sets" className="rounded-sm border border-rule bg-paper-raised p-4">
-          <TuningSets plantRef={plantRef} current={controller} onLoad={(cfg) => loadTuning(cfg)} />
+        <section ref={panelRefs["tuning-sets"]} tabIndex={-1} aria-label="Tuning sets" className="rounded-sm border border-rule bg-paper-raised p-4 focus:outline-none focus-visible:ring-2 focus-visible:ring-rule-strong">
+          <TuningSets plantRef={plantRef} current={controller} onLoad={(cfg) => loadTuning(cfg)} onSaved={(id, name) => useBench.getState().set({ savedTuningSet: { id, name } })} />
         </section>
       </aside>
 
@@ -339,15 +465,17 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
             ))}
           </div>
           {testsTab === "experiments" ? (
-            <ExperimentsPanel baseDrill={drill} controller={controller} seed={run.seed} state={experiments.state} start={experiments.start} cancel={experiments.cancel} />
+            <div ref={panelRefs.proof} tabIndex={-1} className="focus:outline-none">
+              <ExperimentsPanel baseDrill={drill} controller={controller} seed={run.seed} state={experiments.state} start={experiments.start} cancel={experiments.cancel} siteProofEditor={commissioning?.proofEditor(drill)} />
+            </div>
           ) : null}
           {/* the test panels stay mounted (hidden) so their settings survive a tab change */}
-          <div hidden={testsTab !== "relay"}>
-            <RelayPanel units={units} spanC={spanC} controllerForm={controller.form} onStart={(o, pace) => engine?.startRelay(o, pace)} onCancel={() => engine?.cancelTest()} onApply={loadTuning} />
+          <div hidden={testsTab !== "relay"} ref={panelRefs.relay} tabIndex={-1} className="focus:outline-none">
+            <RelayPanel units={units} spanC={spanC} controllerForm={controller.form} onStart={(o, pace) => engine?.startRelay(o, pace)} onCancel={() => engine?.cancelTest()} onApply={applyProposal("relay")} />
           </div>
-          <div hidden={testsTab !== "bump"} className="space-y-4">
-            <BumpPanel units={units} spanC={spanC} controllerForm={controller.form} onStart={(o, pace) => engine?.startBump(o, pace)} onCancel={() => engine?.cancelTest()} onApply={loadTuning} />
-            <div className="border-t border-rule pt-3">
+          <div hidden={testsTab !== "bump"} ref={panelRefs.bump} tabIndex={-1} className="space-y-4 focus:outline-none">
+            <BumpPanel units={units} spanC={spanC} controllerForm={controller.form} onStart={(o, pace) => engine?.startBump(o, pace)} onCancel={() => engine?.cancelTest()} onApply={applyProposal("bump")} />
+            <div className="border-t border-rule pt-3 focus:outline-none" ref={panelRefs["power-curve"]} tabIndex={-1}>
               <PowerCurvePanel units={units} onRequest={(sp) => engine?.requestPowerCurve(sp)} />
             </div>
           </div>
@@ -377,6 +505,13 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id }: { initialPre
           </div>
         </div>
       ) : null}
+    </div>
+  );
+  if (!commissioning) return grid;
+  return (
+    <div className="space-y-4">
+      {commissioning.header}
+      {grid}
     </div>
   );
 }

@@ -8,10 +8,12 @@ import type { DrillInput } from "@/sim/drill/schema";
 import { steadyStateTemperatureC } from "@/sim/plant/derived-figures";
 import type { PlantDefinition } from "@/sim/plant/plant-definition";
 import { findPreset } from "@/sim/plant/presets";
+import type { SensorChainConfigInput } from "@/sim/sensor/config";
 
 export const BENCH_DURATION_S = 12 * 3600;
 
-export type BenchPlant = { kind: "preset"; presetId: string } | { kind: "stored"; definition: PlantDefinition; cutoutTripC: number };
+/** A stored plant may bring its own sensor chain (a twin's: the noise and step of its uploaded log). */
+export type BenchPlant = { kind: "preset"; presetId: string } | { kind: "stored"; definition: PlantDefinition; cutoutTripC: number; sensor?: SensorChainConfigInput };
 
 export function plantDefinitionOf(plant: BenchPlant): PlantDefinition {
   if (plant.kind === "stored") return plant.definition;
@@ -60,6 +62,7 @@ export function benchDrill(opts: {
     referenceTuning: opts.reference,
     noise: { seedPolicy: "fixed", seed: opts.seed },
     ...(opts.plant.kind === "stored" ? { cutout: { tripPointC: opts.plant.cutoutTripC } } : {}),
+    ...(opts.plant.kind === "stored" && opts.plant.sensor ? { sensor: opts.plant.sensor } : {}),
     durationS: BENCH_DURATION_S,
   };
 }

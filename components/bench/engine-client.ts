@@ -64,6 +64,14 @@ export class BenchEngine {
       case "test-outcome": {
         const { type: _t, ...outcome } = msg;
         store.set({ test: { kind: msg.test, status: "finished", progress: store.test?.progress ?? null, outcome } });
+        // kept apart from `test`, which the next load clears: the hand-over path needs them after a restart
+        if (outcome.test === "relay" && outcome.outcome.ok) {
+          const r = outcome.outcome;
+          store.note({ relay: { ku: r.ku, puS: r.puS, amplitudeC: r.amplitudeC, dPercent: r.dPercent } });
+        } else if (outcome.test === "bump" && outcome.outcome.ok) {
+          const id = outcome.outcome.identification;
+          store.note({ bumpModel: id.preferred === "sopdt" && id.sopdt ? id.sopdt.model : id.fopdt.model });
+        }
         break;
       }
     }

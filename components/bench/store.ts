@@ -12,6 +12,8 @@ import type { StampedAction } from "@/sim/drill/actions";
 import type { BenchSpeed, FromWorker } from "@/sim/worker/protocol";
 import type { BenchTestKind, BenchTestOutcome, BenchTestProgress } from "@/sim/worker/bench-tests";
 import type { TemperatureUnit } from "@/sim/units";
+import type { ProcessModel } from "@/sim/tuning/models";
+import type { ControllerType } from "@/sim/tuning/rules/tuning";
 
 export interface DisplayUnits {
   temperature: TemperatureUnit;
@@ -61,8 +63,65 @@ export interface BenchState {
   test: BenchTestState | null;
   /** the loaded plant's power curve and the OUT for the last SP asked about (from the worker) */
   powerCurve: Omit<Extract<FromWorker, { type: "power-curve" }>, "type"> | null;
+  /** what the tests found on this plant; kept across loads (a new sample time is a new run), cleared with a new plant */
+  findings: BenchFindings;
+  /** a proof test built outside the experiments panel (the hand-over path's site proof test) */
+  siteProof: SiteProof | null;
+  /** the tuning set last saved on this Bench (the one the technician settles on, unless they pick another) */
+  savedTuningSet: { id: string; name: string } | null;
+  /** a request to bring one panel into view (the counter makes a repeated request new) */
+  focus: { panel: BenchPanelId; n: number } | null;
   set: (patch: Partial<BenchState>) => void;
+  requestFocus: (panel: BenchPanelId) => void;
+  /** records a finding (merged into the current findings) */
+  note: (patch: Partial<BenchFindings>) => void;
 }
+
+export type BenchPanelId = "power-curve" | "relay" | "bump" | "proof" | "tuning-sets";
+
+/** The stored drill version a proof test came from; null for a timeline built on the spot. */
+export interface DrillVersionRef {
+  drillId: string;
+  version: number;
+  title: string;
+}
+
+export interface SiteProof {
+  label: string;
+  /** the drill to run, its plant already this plant's */
+  drill: DrillInput;
+  drillVersion: DrillVersionRef | null;
+}
+
+/** One proof-test run as it was run (drill, controller, seed) with its headline results. */
+export interface ProofRun {
+  key: string;
+  label: string;
+  /** "PI" or "PID": which side of the comparison */
+  tuningLabel: string;
+  drill: DrillInput;
+  drillVersion: DrillVersionRef | null;
+  controller: ControllerConfig;
+  seed: number;
+  /** whole-run IAE on the true temperature, °C·s, and the largest window overshoot, % */
+  iae: number | null;
+  overshootPct: number | null;
+}
+
+export interface BenchFindings {
+  /** the last successful relay test */
+  relay: { ku: number; puS: number; amplitudeC: number; dPercent: number } | null;
+  /** the model of the last successful bump test (its preferred fit) */
+  bumpModel: ProcessModel | null;
+  /** the rule of the last relay-test proposal loaded into the controller */
+  relayRule: string | null;
+  /** the last proposal loaded into the controller: from which test, by which rule */
+  applied: { source: "relay" | "bump"; rule: string; controllerType: ControllerType; model: ProcessModel | null; controller: ControllerConfig } | null;
+  /** site proof tests run through the PI vs PID comparison, oldest first */
+  proofRuns: ProofRun[];
+}
+
+export const NO_FINDINGS: BenchFindings = { relay: null, relayRule: null, bumpModel: null, applied: null, proofRuns: [] };
 
 export const useBench = create<BenchState>((set) => ({
   setup: null,
@@ -82,5 +141,11 @@ export const useBench = create<BenchState>((set) => ({
   fingerprint: null,
   test: null,
   powerCurve: null,
+  findings: NO_FINDINGS,
+  siteProof: null,
+  savedTuningSet: null,
+  focus: null,
   set: (patch) => set(patch),
+  requestFocus: (panel) => set((s) => ({ focus: { panel, n: (s.focus?.n ?? 0) + 1 } })),
+  note: (patch) => set((s) => ({ findings: { ...s.findings, ...patch } })),
 }));

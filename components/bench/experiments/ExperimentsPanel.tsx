@@ -4,7 +4,7 @@
  * tuning map. All run in their own worker on the same proof test and seed, with progress and
  * cancel; results appear in the middle column.
  */
-import { useState } from "react";
+import { useEffect, useState, type ReactNode } from "react";
 import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
 import { jobsFor, type RunJob, type Variant } from "@/sim/experiments/variants";
 import type { DrillInput } from "@/sim/drill/schema";
@@ -12,11 +12,33 @@ import { experimentDrill, type ProofTest } from "@/sim/experiments/experiment-dr
 import { parseValueList, piVersusPidVariants, SWEEP_PARAMETERS, sweepVariants, type SweepParameter } from "@/sim/experiments/sweep";
 import { geometricAxis, MAP_METRICS, mapVariants, type MapMetric } from "@/sim/experiments/tuning-map";
 import type { ExperimentState } from "./use-experiments";
+import { useBench } from "../store";
 
 type Start = (kind: ExperimentState["kind"], jobs: RunJob[], meta?: ExperimentState["meta"]) => void;
 
-export function ExperimentsPanel({ baseDrill, controller, seed, state, start, cancel }: { baseDrill: DrillInput; controller: ControllerConfig; seed: number; state: ExperimentState; start: Start; cancel: () => void }) {
+export interface ExperimentsPanelProps {
+  baseDrill: DrillInput;
+  controller: ControllerConfig;
+  seed: number;
+  state: ExperimentState;
+  start: Start;
+  cancel: () => void;
+  /** an editor of a site proof test (setpoint ladder, disturbances, stored drill) offered beside the SP step; it puts its test in the store's siteProof */
+  siteProofEditor?: ReactNode;
+}
+
+export function ExperimentsPanel({ baseDrill, controller, seed, state, start, cancel, siteProofEditor }: ExperimentsPanelProps) {
   const [tab, setTab] = useState<"sweep" | "compare" | "map">("sweep");
+  const [source, setSource] = useState<"step" | "site">(siteProofEditor ? "site" : "step");
+  const siteProof = useBench((s) => s.siteProof);
+  const focus = useBench((s) => s.focus);
+  // the hand-over path's "proof tests" stage opens the comparison on the site proof test
+  useEffect(() => {
+    if (focus?.panel !== "proof") return;
+    setTab("compare");
+    if (siteProofEditor) setSource("site");
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [focus]);
   const [stepC, setStepC] = useState("10");
   const [durationMin, setDurationMin] = useState("30");
   const [withBlockage, setWithBlockage] = useState(false);
@@ -45,7 +67,9 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
     setTimeout(() => URL.revokeObjectURL(url), 1000);
   };
 
+  const useSite = !!siteProofEditor && source === "site";
   const proofDrill = (): DrillInput | null => {
+    if (useSite) return siteProof ? siteProof.drill : fail("Build the site proof test first (a setpoint ladder with disturbances, or a stored drill).");
     const step = Number(stepC);
     const minutes = Number(durationMin);
     if (!Number.isFinite(step) || step === 0 || Math.abs(step) > 100) return fail("The SP step must be a non-zero number of °C (at most 100).");
@@ -70,7 +94,7 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
     } else if (tab === "compare") {
       const nums = [pid.kc, pid.ti, pid.td, pi.kc, pi.ti].map(Number);
       if (nums.some((v) => !Number.isFinite(v) || v < 0)) return void fail("Enter non-negative numbers for both tunings.");
-      launch("compare", drill, piVersusPidVariants(controller, { kc: nums[0], ti: nums[1], td: nums[2] }, { kc: nums[3], ti: nums[4] }));
+      launch("compare", drill, piVersusPidVariants(controller, { kc: nums[0], ti: nums[1], td: nums[2] }, { kc: nums[3], ti: nums[4] }), useSite && siteProof ? { proof: { ...siteProof, seed } } : undefined);
     } else {
       const n = Number(gridN);
       const s = Number(spread);
@@ -97,7 +121,19 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
         {tabBtn("compare", "PI vs PID")}
         {tabBtn("map", "Tuning map")}
       </div>
-      <fieldset className="space-y-1.5 rounded-sm border border-rule p-2">
+      {siteProofEditor ? (
+        <div role="radiogroup" aria-label="Proof test source" className="flex gap-3 text-xs">
+          <label className="flex items-center gap-1">
+            <input type="radio" name="ex-source" checked={source === "site"} onChange={() => setSource("site")} /> site proof test
+          </label>
+          <label className="flex items-center gap-1">
+            <input type="radio" name="ex-source" checked={source === "step"} onChange={() => setSource("step")} /> one SP step
+          </label>
+        </div>
+      ) : null}
+      {/* kept mounted while hidden, so the editor keeps its ladder across a switch */}
+      {siteProofEditor ? <div hidden={!useSite}>{siteProofEditor}</div> : null}
+      <fieldset hidden={useSite} className="space-y-1.5 rounded-sm border border-rule p-2">
         <legend className="px-1 text-xs text-ink-faint">Proof test (every run)</legend>
         <Row label="SP step at 1:00" id="ex-step">
           <input id="ex-step" value={stepC} onChange={(e) => setStepC(e.target.value)} className={small} />

@@ -7,6 +7,7 @@
 import { useCallback, useEffect, useRef, useState } from "react";
 import type { RunJob, VariantRun } from "@/sim/experiments/variants";
 import type { FromExperiments, ToExperiments } from "@/sim/worker/experiments-protocol";
+import type { SiteProof } from "../store";
 
 export interface ExperimentState {
   kind: "sweep" | "compare" | "map" | "saved" | null;
@@ -16,7 +17,8 @@ export interface ExperimentState {
   rows: VariantRun[];
   elapsedMs: number | null;
   error: string | null;
-  meta?: { kcAxis?: number[]; tiAxis?: number[]; metric?: string };
+  /** proof: the site proof test every run of a comparison ran (kept so its runs can go on a tuning record) */
+  meta?: { kcAxis?: number[]; tiAxis?: number[]; metric?: string; proof?: SiteProof & { seed: number } };
 }
 
 const idle: ExperimentState = { kind: null, status: "idle", done: 0, total: 0, rows: [], elapsedMs: null, error: null };

@@ -1,9 +1,9 @@
 "use client";
 // Tuning sets of the chosen plant: the user's named controller configurations, listed with SWR
 // from /api/tuning-sets, saved and deleted through server actions, loaded into the Bench.
-import { useActionState, useEffect, useState } from "react";
+import { useActionState, useEffect, useRef, useState } from "react";
 import useSWR from "swr";
-import { deleteTuningSet, saveTuningSet } from "@/app/(app)/bench/actions";
+import { deleteTuningSet, saveTuningSet, type SavedResult } from "@/app/(app)/bench/actions";
 import type { ActionResult } from "@/app/_lib/action";
 import type { TuningSetItem } from "@/db/bench-queries";
 import { FormOutcome } from "@/components/forms/ActionForm";
@@ -15,6 +15,8 @@ export interface TuningSetsProps {
   /** the Bench's controller configuration now (what "Save" stores) */
   current: ControllerConfig;
   onLoad(controller: ControllerConfig): void;
+  /** told the new row's id after a save (the hand-over path settles on it) */
+  onSaved?(id: string, name: string): void;
 }
 
 export const tuningSetsKey = (plantRef: string) => `/api/tuning-sets?plant=${encodeURIComponent(plantRef)}`;
@@ -44,23 +46,28 @@ export function ControllerSummary({ c }: { c: ControllerConfig }) {
   );
 }
 
-export function TuningSets({ plantRef, current, onLoad }: TuningSetsProps) {
+export function TuningSets({ plantRef, current, onLoad, onSaved }: TuningSetsProps) {
   const key = plantRef ? tuningSetsKey(plantRef) : null;
   const { data, error, mutate } = useSWR<{ tuningSets: TuningSetItem[] }>(key, fetchJson);
   const [name, setName] = useState("");
   const [notes, setNotes] = useState("");
-  const [saveState, saveAction, saving] = useActionState<ActionResult, FormData>(saveTuningSet, { ok: true });
+  const [saveState, saveAction, saving] = useActionState<SavedResult, FormData>(saveTuningSet, { ok: true });
+  const savedName = useRef("");
+  const onSavedRef = useRef(onSaved);
+  onSavedRef.current = onSaved;
   const [deleteState, deleteAction] = useActionState<ActionResult, FormData>(deleteTuningSet, { ok: true });
 
   useEffect(() => {
     void mutate();
     if (saveState.ok && saveState.message) {
+      if (saveState.id) onSavedRef.current?.(saveState.id, savedName.current);
       setName("");
       setNotes("");
     }
   }, [saveState, deleteState, mutate]);
 
   const save = (form: FormData) => {
+    savedName.current = name.trim();
     form.set("payload", JSON.stringify({ plantRef, name: name.trim(), notes: notes.trim(), controller: current }));
     return saveAction(form);
   };
@@ -69,7 +76,7 @@ export function TuningSets({ plantRef, current, onLoad }: TuningSetsProps) {
   return (
     <section aria-label="Tuning sets" className="space-y-3 text-sm">
       <h3 className="text-xs uppercase tracking-wide text-ink-faint">Tuning sets</h3>
-      <form action={save} className="flex flex-wrap items-end gap-2">
+      <form action={save} aria-label="Save a tuning set" className="flex flex-wrap items-end gap-2">
         <label className="block min-w-40 flex-1">
           <span className="mb-0.5 block text-ink-soft">Tuning set name</span>
           <input value={name} onChange={(e) => setName(e.target.value)} required maxLength={120} placeholder="e.g. relay test, PI, filter 4 s" className="w-full rounded-sm border border-rule-strong bg-paper-raised px-2 py-1" />

@@ -14,7 +14,7 @@ import { temperatureDeltaToDisplay } from "@/sim/units";
 import { Duration, Qty } from "../plants/format";
 import { useBench, type DisplayUnits } from "../store";
 import { BumpChart } from "./BumpChart";
-import { ProposalView } from "./ProposalView";
+import { ProposalView, type ProposalOrigin } from "./ProposalView";
 
 export interface BumpPanelProps {
   units: DisplayUnits;
@@ -22,7 +22,7 @@ export interface BumpPanelProps {
   controllerForm: BlockForm;
   onStart: (options: BumpTestOptions, speed: "bench" | "max") => void;
   onCancel: () => void;
-  onApply: (cfg: ControllerConfig) => void;
+  onApply: (cfg: ControllerConfig, origin?: ProposalOrigin) => void;
 }
 
 const PHASES: Record<string, string> = {
@@ -117,7 +117,7 @@ export function BumpPanel({ units, spanC, controllerForm, onStart, onCancel, onA
 
 type OkOutcome = Extract<BumpOutcome, { ok: true }>;
 
-function BumpResultView({ outcome: o, base, units, spanC, onApply, initial }: { outcome: OkOutcome; base: ControllerConfig; units: DisplayUnits; spanC: number; onApply: (cfg: ControllerConfig) => void; initial: { rule?: string; controller: ControllerType; form: BlockForm } }) {
+function BumpResultView({ outcome: o, base, units, spanC, onApply, initial }: { outcome: OkOutcome; base: ControllerConfig; units: DisplayUnits; spanC: number; onApply: (cfg: ControllerConfig, origin?: ProposalOrigin) => void; initial: { rule?: string; controller: ControllerType; form: BlockForm } }) {
   const id = o.identification;
   const [which, setWhich] = useState<"fopdt" | "sopdt">(id.preferred);
   const model = which === "sopdt" && id.sopdt ? id.sopdt.model : id.fopdt.model;

@@ -31,9 +31,16 @@ export interface ProposalViewProps {
   extraLags?: LoopLags;
   units: DisplayUnits;
   spanC: number;
-  onApply: (cfg: ControllerConfig) => void;
+  onApply: (cfg: ControllerConfig, origin?: ProposalOrigin) => void;
   /** id prefix for the form controls */
   idPrefix: string;
+}
+
+/** Where an applied tuning came from: the rule actually used (the recommended one resolved) and the model, if any. */
+export interface ProposalOrigin {
+  rule: string;
+  controllerType: ControllerType;
+  model: ProcessModel | null;
 }
 
 function fmtFactor(x: number): string {
@@ -228,7 +235,7 @@ export function ProposalView({ ultimate, model, base, initial, sampleTimeAndFilt
                 type="button"
                 className="rounded-sm bg-ink px-2.5 py-1 font-semibold text-paper hover:bg-ink-soft"
                 onClick={() => {
-                  onApply(cfg);
+                  onApply(cfg, "refused" in rec ? undefined : { rule: rec.tuning.rule, controllerType: rec.tuning.controller, model: model ?? null });
                   setConfirming(false);
                   setApplied(`Loaded into the controller (${RULE_LABELS[("refused" in rec ? "" : rec.tuning.rule)] ?? ""}, ${FORM_LABELS[cfg.form]} form).`);
                 }}

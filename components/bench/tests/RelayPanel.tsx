@@ -14,7 +14,7 @@ import { gainPerCelsiusToDisplay, temperatureDeltaFromDisplay, temperatureDeltaT
 import { Duration, Qty } from "../plants/format";
 import { useBench, type DisplayUnits } from "../store";
 import { FORM_LABELS, RULE_LABELS, ruleChoices } from "./labels";
-import { ProposalView } from "./ProposalView";
+import { ProposalView, type ProposalOrigin } from "./ProposalView";
 
 export interface RelayPanelProps {
   units: DisplayUnits;
@@ -24,7 +24,7 @@ export interface RelayPanelProps {
   controllerForm: BlockForm;
   onStart: (options: RelayTestOptions, speed: "bench" | "max") => void;
   onCancel: () => void;
-  onApply: (cfg: ControllerConfig) => void;
+  onApply: (cfg: ControllerConfig, origin?: ProposalOrigin) => void;
 }
 
 const PHASES: Record<string, string> = {
@@ -287,7 +287,7 @@ function NoiseWarning({ outcome, hysteresisC, units, onStartAnyway }: { outcome:
   );
 }
 
-function RelayResultView({ result: r, base, units, spanC, onApply, initial }: { result: RelayResult; base: ControllerConfig; units: DisplayUnits; spanC: number; onApply: (cfg: ControllerConfig) => void; initial: { rule?: string; controller?: ControllerType; form?: BlockForm } }) {
+function RelayResultView({ result: r, base, units, spanC, onApply, initial }: { result: RelayResult; base: ControllerConfig; units: DisplayUnits; spanC: number; onApply: (cfg: ControllerConfig, origin?: ProposalOrigin) => void; initial: { rule?: string; controller?: ControllerType; form?: BlockForm } }) {
   const T = `°${units.temperature}`;
   const dT = (c: number) => temperatureDeltaToDisplay(c, units.temperature);
   const g = (k: number) => gainPerCelsiusToDisplay(k, units.temperature);
