@@ -6,9 +6,11 @@
 // and a foreign id alike are common practice (OWASP Authorization Cheat Sheet, from memory).
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { createPlant, createTuningSet, type BenchUser } from "@/app/_lib/bench-store";
+import { z } from "zod";
+import { fieldErrorsOf, formToObject } from "@/app/_lib/action";
+import { createPlant, createTuningSet, jsonPayloadField, setPlantShared, type BenchUser } from "@/app/_lib/bench-store";
 import { createTuningRecord } from "@/app/_lib/records/create-record";
-import type { ProofTestRequest, RecordRequest } from "@/app/_lib/records/record-document";
+import { recordRequestSchema, type ProofTestRequest, type RecordRequest } from "@/app/_lib/records/record-document";
 import { recordDetail, recordsFor } from "@/app/_lib/records/record-queries";
 import { recordTracesCsv } from "@/app/_lib/records/record-traces-csv";
 import { signOffRecord, updateRecordNotes } from "@/app/_lib/records/update-record";
@@ -193,6 +195,35 @@ describe("writing a tuning record", () => {
     expect(doc.model).toEqual({ kind: "sopdt", gainCPerPercent: 0.9, timeConstant1S: 700, timeConstant2S: 300, deadTimeS: 25 });
     expect(doc.plant.sourceUpload).toEqual({ id: upload.id, fileName: "bay4-bump.csv", sha256: upload.sha256, byteSize: content.length });
     expect(doc.margins!.lags!.sensorLagS).toBe(5);
+  });
+
+  it("from the action's form: one hidden `payload` field parsed as the action does, then written", async () => {
+    // the same parse defineAction does (app/(app)/records/actions.ts): FormData → object → zod
+    const form = z.object({ payload: jsonPayloadField(recordRequestSchema, 2_000_000) });
+    const parse = (payload: string) => {
+      const fd = new FormData();
+      fd.set("payload", payload);
+      const r = form.safeParse(formToObject(fd));
+      return r.success ? { ok: true as const, data: r.data } : { ok: false as const, error: Object.values(fieldErrorsOf(r.error))[0] };
+    };
+    expect(parse("{not json")).toEqual({ ok: false, error: "The form sent something that is not JSON." });
+    expect(parse(JSON.stringify({ ...presetRequest(), title: "" }))).toEqual({ ok: false, error: "title: Give the record a title." });
+    const ok = parse(JSON.stringify(presetRequest({ title: "Through the form" })));
+    expect(ok.ok).toBe(true);
+    const { id } = await createTuningRecord(author, ok.ok ? ok.data.payload : null);
+    expect((await recordDetail(author, id))!.title).toBe("Through the form");
+  });
+
+  it("on a colleague's shared plant, with the writer's own tuning set", async () => {
+    const shared = await createPlant(author, { name: "Shared oven O-3", description: "", definition: { ...SAMPLE_CABINET, heaterRatingW: 1800 } });
+    await setPlantShared(author, shared.id, true);
+    const setOfColleague = await createTuningSet(colleague, { plantRef: shared.ref, name: "O-3 PI", notes: "", controller: { ...pid, td: 0 } });
+    const request = presetRequest({ plantRef: shared.ref, tuningSetId: setOfColleague.id, proofTests: [] });
+    await setPlantShared(author, shared.id, false);
+    await refused(colleague, request, "That plant does not exist."); // private again: not readable, not revealed
+    await setPlantShared(author, shared.id, true);
+    const { id } = await createTuningRecord(colleague, request);
+    expect((await recordDetail(colleague, id))!.document.plant).toMatchObject({ ref: shared.ref, name: "Shared oven O-3" });
   });
 
   it("refuses bad input with a clear message and writes nothing", async () => {

@@ -4,8 +4,8 @@ import { recordFileName } from "@/app/_lib/records/record-filename";
 import { recordPdf } from "@/app/_lib/records/record-pdf";
 
 // GET /api/records/:recordId/pdf — the tuning record as a PDF, for signed-in users of the
-// record's organisation (404 for a missing or foreign record alike).
-export const runtime = "nodejs"; // pdfkit reads its font metrics from disk
+// record's organisation (404 for a missing or foreign record alike). pdfkit stays outside the
+// bundle (serverExternalPackages), so it finds its font metrics on disk.
 
 export async function GET(_request: Request, { params }: { params: Promise<{ recordId: string }> }) {
   const { recordId } = await params;
