@@ -17,6 +17,7 @@ import { recordDocumentSchema, recordRequestSchema, type RecordDocument, type Re
 import { modelOfDefinition } from "./record-model";
 import { recordMargins } from "./record-margins";
 import { checkProofTest, storedProofTest } from "./proof-run";
+import { canonicalRef } from "./plant-ref";
 
 /** The plant and tuning set a record is written from, as read at one moment. */
 interface Sources {
@@ -30,11 +31,6 @@ interface Sources {
 
 const notFoundPlant = () => new ActionRefused("That plant does not exist.");
 const notYourTuningSet = () => new ActionRefused("That tuning set does not exist or is not yours: choose one of your own tuning sets for this plant.");
-
-/** "preset:<id>" or "plant:<lowercase uuid>": one spelling per plant, for comparing references. */
-export function canonicalRef(ref: PlantRef): string {
-  return ref.kind === "preset" ? `preset:${ref.presetId}` : `plant:${ref.plantId}`;
-}
 
 async function readPlant(tx: Transaction, user: BenchUser, ref: PlantRef): Promise<Pick<Sources, "plantId" | "plant">> {
   if (ref.kind === "preset") {
