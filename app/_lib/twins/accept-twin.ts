@@ -99,7 +99,7 @@ export async function acceptTwin(user: BenchUser, input: AcceptTwinInput): Promi
   const plant = plantInputSchema.safeParse({ name, description, origin: "twin", definition });
   if (!plant.success) throw new ActionRefused(plant.error.issues[0]?.message ?? "Check the form.");
   const p = plant.data;
-  const record = identificationRecord(identification, summary, mapping, { chosen: choice, encoding: decoded.encoding, ambientC });
+  const record = identificationRecord(identification, summary, mapping, { chosen: choice, encoding: decoded.encoding, ambientC, fitNote: result.fitNote });
 
   return getDb().transaction(async (tx) => {
     const [upload] = await tx

@@ -66,7 +66,7 @@ export function identificationRecord(
   id: Identification,
   summary: LogSummary,
   mapping: LogMapping,
-  opts: { chosen: CandidateKind; encoding: LogEncoding; ambientC: number | null },
+  opts: { chosen: CandidateKind; encoding: LogEncoding; ambientC: number | null; fitNote?: string | null },
 ): IdentificationRecord {
   return {
     engineVersion: ENGINE_VERSION,
@@ -75,7 +75,7 @@ export function identificationRecord(
     candidates: { fopdt: candidateRecord(id.fopdt), sopdt: id.sopdt ? candidateRecord(id.sopdt) : null },
     noiseSigmaC: id.noiseSigmaC,
     quantizationStepC: summary.quantizationStepC,
-    warnings: id.warnings.map((w) => ({ code: w.code, message: w.message })),
+    warnings: [...id.warnings.map((w) => ({ code: w.code as string, message: w.message })), ...(opts.fitNote ? [{ code: "fitted-on-block-means", message: opts.fitNote }] : [])],
     step: { timeS: id.step.timeS, outBeforePercent: id.step.outBefore, outAfterPercent: id.step.outAfter, pvBeforeC: id.step.pvBefore, pvEndC: id.step.pvEnd },
     ambient: opts.ambientC === null ? { valueC: id.step.pvBefore, source: "pv-before-step" } : { valueC: opts.ambientC, source: "given" },
     log: {
