@@ -31,9 +31,10 @@ import { useShallow } from "zustand/react/shallow";
 import { HelpOverlay } from "./HelpOverlay";
 import { ResultsTable } from "./ResultsTable";
 import { BENCH_SPEEDS, RunControls } from "./RunControls";
-import { NO_FINDINGS, useBench, type BenchPanelId, type ProofRun } from "./store";
+import { NO_FINDINGS, useBench, type BenchPanelId } from "./store";
 import { sensorMatching, type SensorFromData } from "./sensor-from-data";
 import type { ExperimentState } from "./experiments/use-experiments";
+import { proofRunsOf } from "./experiments/proof-runs";
 import { isArrowKey, operatorKeyAction } from "./operator-keys";
 import { makeReplayBundle } from "@/sim/drill/replay-bundle";
 import { ExperimentsPanel } from "./experiments/ExperimentsPanel";
@@ -191,12 +192,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id, startPlant, co
   };
   const applyProposal = (source: "relay" | "bump") => (cfg: ControllerConfig, origin?: ProposalOrigin) => {
     loadTuning(cfg);
-    if (origin) {
-      useBench.getState().note({
-        applied: { source, rule: origin.rule, controllerType: origin.controllerType, model: origin.model, controller: controllerConfigSchema.parse({ ...controller, ...cfg }) },
-        ...(source === "relay" ? { relayRule: origin.rule } : {}),
-      });
-    }
+    if (origin) useBench.getState().noteApplied(source, origin, controllerConfigSchema.parse({ ...controller, ...cfg }));
   };
 
   // a finished comparison on the site proof test is kept run by run, as it was run
@@ -207,22 +203,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id, startPlant, co
     if (st.status !== "done" || st.kind !== "compare" || !proof || recordedExperiment.current === st) return;
     recordedExperiment.current = st;
     const { findings, note } = useBench.getState();
-    const stamp = Date.now().toString(36);
-    const runs: ProofRun[] = st.rows.map((r) => {
-      const tuningLabel = r.label.split(" ")[0];
-      const overshoots = r.results.windows.map((w) => w.trueTemperature.overshootPct).filter((v): v is number => v != null);
-      return {
-        key: `${stamp}-${r.index}`,
-        label: `${proof.label} · ${tuningLabel}`.slice(0, 80),
-        tuningLabel,
-        drill: proof.drill,
-        drillVersion: proof.drillVersion,
-        controller: r.controller,
-        seed: proof.seed,
-        iae: Number.isFinite(r.results.wholeRun.trueTemperature.iae) ? r.results.wholeRun.trueTemperature.iae : null,
-        overshootPct: overshoots.length ? Math.max(...overshoots) : null,
-      };
-    });
+    const runs = proofRunsOf(proof, st.rows, Date.now().toString(36));
     note({ proofRuns: [...findings.proofRuns, ...runs].slice(-16) });
   }, [experiments.state]);
 

@@ -53,6 +53,7 @@ export class BenchEngine {
       case "power-curve": {
         const { type: _t, ...pc } = msg;
         store.set({ powerCurve: pc });
+        store.note({ powerCurve: pc });
         break;
       }
       case "test-progress": {

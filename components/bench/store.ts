@@ -75,6 +75,8 @@ export interface BenchState {
   requestFocus: (panel: BenchPanelId) => void;
   /** records a finding (merged into the current findings) */
   note: (patch: Partial<BenchFindings>) => void;
+  /** records a test's proposal loaded into the controller (a relay test's rule is kept apart: the record pairs it with Ku and Pu) */
+  noteApplied: (source: "relay" | "bump", origin: { rule: string; controllerType: ControllerType; model: ProcessModel | null }, controller: ControllerConfig) => void;
 }
 
 export type BenchPanelId = "power-curve" | "relay" | "bump" | "proof" | "tuning-sets";
@@ -109,6 +111,8 @@ export interface ProofRun {
 }
 
 export interface BenchFindings {
+  /** the last power curve the worker sent (a new load drops `powerCurve` until it is asked again) */
+  powerCurve: BenchState["powerCurve"];
   /** the last successful relay test */
   relay: { ku: number; puS: number; amplitudeC: number; dPercent: number } | null;
   /** the model of the last successful bump test (its preferred fit) */
@@ -121,7 +125,7 @@ export interface BenchFindings {
   proofRuns: ProofRun[];
 }
 
-export const NO_FINDINGS: BenchFindings = { relay: null, relayRule: null, bumpModel: null, applied: null, proofRuns: [] };
+export const NO_FINDINGS: BenchFindings = { powerCurve: null, relay: null, relayRule: null, bumpModel: null, applied: null, proofRuns: [] };
 
 export const useBench = create<BenchState>((set) => ({
   setup: null,
@@ -148,4 +152,6 @@ export const useBench = create<BenchState>((set) => ({
   set: (patch) => set(patch),
   requestFocus: (panel) => set((s) => ({ focus: { panel, n: (s.focus?.n ?? 0) + 1 } })),
   note: (patch) => set((s) => ({ findings: { ...s.findings, ...patch } })),
+  noteApplied: (source, origin, controller) =>
+    set((s) => ({ findings: { ...s.findings, applied: { source, ...origin, controller }, ...(source === "relay" ? { relayRule: origin.rule } : {}) } })),
 }));

@@ -33,7 +33,7 @@ const MARK: Record<StageState, { text: string; className: string }> = {
 
 export function HandoverPath({ plantRef, plantName, origin }: HandoverPathProps) {
   const [recordId, setRecordId] = useState<string | null>(null);
-  const s = useBench(useShallow((st) => ({ powerCurve: st.powerCurve, findings: st.findings, siteProof: st.siteProof, savedTuningSet: st.savedTuningSet, unit: st.units.temperature, requestFocus: st.requestFocus })));
+  const s = useBench(useShallow((st) => ({ powerCurve: st.powerCurve ?? st.findings.powerCurve, findings: st.findings, siteProof: st.siteProof, savedTuningSet: st.savedTuningSet, unit: st.units.temperature, requestFocus: st.requestFocus })));
   const stages = handoverStages({ ...s, recordId });
   return (
     <section aria-label="Hand-over path" className="space-y-3 rounded-sm border border-rule bg-paper-raised p-4 text-sm">

@@ -28,8 +28,8 @@ export interface RecordFormProps {
 
 export function RecordForm({ plantRef, plantName, origin, onWritten }: RecordFormProps) {
   const router = useRouter();
-  const { data } = useSWR<{ tuningSets: TuningSetItem[] }>(tuningSetsKey(plantRef), fetchJson);
-  const { findings, powerCurve, savedTuningSet } = useBench(useShallow((s) => ({ findings: s.findings, powerCurve: s.powerCurve, savedTuningSet: s.savedTuningSet })));
+  const { data, mutate } = useSWR<{ tuningSets: TuningSetItem[] }>(tuningSetsKey(plantRef), fetchJson);
+  const { findings, powerCurve, savedTuningSet } = useBench(useShallow((s) => ({ findings: s.findings, powerCurve: s.powerCurve ?? s.findings.powerCurve, savedTuningSet: s.savedTuningSet })));
   const sets = useMemo(() => data?.tuningSets ?? [], [data]);
   const [picked, setPicked] = useState<string>("");
   const [title, setTitle] = useState(`Tuning record: ${plantName}`);
@@ -44,6 +44,12 @@ export function RecordForm({ plantRef, plantName, origin, onWritten }: RecordFor
   const set = sets.find((t) => t.id === setId) ?? null;
   const runs = findings.proofRuns;
   const included = runs.filter((r) => !leftOut.has(r.key));
+
+  // a set saved a moment ago may not be in the list yet
+  const savedId = savedTuningSet?.id;
+  useEffect(() => {
+    if (savedId) void mutate();
+  }, [savedId, mutate]);
 
   useEffect(() => {
     if (state.ok && state.id) {
