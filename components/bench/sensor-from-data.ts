@@ -22,12 +22,14 @@ export interface SensorMatch {
 }
 
 const positive = (x: unknown): number | null => (typeof x === "number" && Number.isFinite(x) && x > 0 ? x : null);
+// a log can be noise-free (σ = 0); a step of 0 means no step was found
+const nonNegative = (x: unknown): number | null => (typeof x === "number" && Number.isFinite(x) && x >= 0 ? x : null);
 
 /** Reads noise σ and step from a twin's identification document, whatever else it holds. */
 export function sensorFromIdentification(identification: unknown): SensorFromData | null {
   if (!identification || typeof identification !== "object") return null;
   const id = identification as Record<string, unknown>;
-  const noiseSigmaC = positive(id.noiseSigmaC);
+  const noiseSigmaC = nonNegative(id.noiseSigmaC);
   const quantizationStepC = positive(id.quantizationStepC);
   return noiseSigmaC === null && quantizationStepC === null ? null : { noiseSigmaC, quantizationStepC };
 }

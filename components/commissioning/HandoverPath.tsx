@@ -53,7 +53,9 @@ export function HandoverPath({ plantRef, plantName, origin }: HandoverPathProps)
             <li key={st.id} className="flex flex-col gap-2 bg-paper-raised p-3" aria-labelledby={`stage-${st.id}-title`} data-testid={`stage-${st.id}`} data-state={st.state}>
               <div className="flex items-baseline justify-between gap-2">
                 <h2 id={`stage-${st.id}-title`} className="text-sm font-semibold">
-                  <span className="num mr-1.5 text-ink-faint">{i + 1}</span>
+                  <span aria-hidden="true" className="num mr-1.5 text-ink-faint">
+                    {i + 1}
+                  </span>
                   {st.title}
                 </h2>
                 <span className={`rounded-sm border px-1.5 text-[11px] ${mark.className}`} data-testid={`stage-${st.id}-state`}>

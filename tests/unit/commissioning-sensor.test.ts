@@ -11,6 +11,7 @@ describe("sensorFromIdentification", () => {
   it("reads noise σ and step when they are positive numbers, and nothing else", () => {
     expect(sensorFromIdentification({ noiseSigmaC: 0.12, quantizationStepC: 0.1, candidates: [] })).toEqual({ noiseSigmaC: 0.12, quantizationStepC: 0.1 });
     expect(sensorFromIdentification({ noiseSigmaC: 0.12 })).toEqual({ noiseSigmaC: 0.12, quantizationStepC: null });
+    expect(sensorFromIdentification({ noiseSigmaC: 0, quantizationStepC: null })).toEqual({ noiseSigmaC: 0, quantizationStepC: null });
     expect(sensorFromIdentification({ noiseSigmaC: "0.12", quantizationStepC: -1 })).toBeNull();
     expect(sensorFromIdentification(null)).toBeNull();
     expect(sensorFromIdentification([1, 2])).toBeNull();
