@@ -248,6 +248,17 @@ describe("the experiments panel with a site proof test", () => {
     expect(jobs[0].drill).toEqual(drillSchema.parse(proof.drill));
     expect(meta).toEqual({ proof: { ...proof, seed: SEED } });
 
+    // a relay rule applied: PI and PID are filled in from the same rule on the same Ku and Pu
+    act(() => useBench.getState().noteApplied("relay", { rule: "ziegler-nichols-ultimate", controllerType: "PID", model: null }, controllerConfigSchema.parse(BENCH_START_TUNING)));
+    act(() => useBench.getState().note({ relay: { ku: 20, puS: 400, amplitudeC: 0.5, dPercent: 10 } }));
+    // Ziegler and Nichols, Trans. ASME 64 (1942), ultimate-cycle table: PI Kc = 0.45 Ku, Ti = Pu/1.2; PID Kc = 0.6 Ku, Ti = Pu/2, Td = Pu/8
+    expect((screen.getByLabelText("PI Kc") as HTMLInputElement).value).toBe("9");
+    expect(Number((screen.getByLabelText("PI Ti") as HTMLInputElement).value)).toBeCloseTo(333, 0);
+    expect((screen.getByLabelText("PID Kc") as HTMLInputElement).value).toBe("12");
+    expect((screen.getByLabelText("PID Ti") as HTMLInputElement).value).toBe("200");
+    expect((screen.getByLabelText("PID Td") as HTMLInputElement).value).toBe("50");
+    expect(screen.getByTestId("compare-suggestion").textContent).toMatch(/Ziegler–Nichols, ultimate on the relay result/);
+
     // the plain SP step is still there
     fireEvent.click(screen.getByRole("radio", { name: "one SP step" }));
     fireEvent.click(screen.getByRole("button", { name: "Run experiment" }));

@@ -4,7 +4,7 @@
  * tuning map. All run in their own worker on the same proof test and seed, with progress and
  * cancel; results appear in the middle column.
  */
-import { useEffect, useState, type ReactNode } from "react";
+import { useEffect, useMemo, useState, type ReactNode } from "react";
 import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
 import { jobsFor, type RunJob, type Variant } from "@/sim/experiments/variants";
 import type { DrillInput } from "@/sim/drill/schema";
@@ -13,6 +13,8 @@ import { parseValueList, piVersusPidVariants, SWEEP_PARAMETERS, sweepVariants, t
 import { geometricAxis, MAP_METRICS, mapVariants, type MapMetric } from "@/sim/experiments/tuning-map";
 import type { ExperimentState } from "./use-experiments";
 import { useBench } from "../store";
+import { RULE_LABELS } from "../tests/labels";
+import { comparePair } from "./compare-suggestion";
 
 type Start = (kind: ExperimentState["kind"], jobs: RunJob[], meta?: ExperimentState["meta"]) => void;
 
@@ -31,6 +33,16 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
   const [tab, setTab] = useState<"sweep" | "compare" | "map">("sweep");
   const [source, setSource] = useState<"step" | "site">(siteProofEditor ? "site" : "step");
   const siteProof = useBench((s) => s.siteProof);
+  // the rule last applied, asked again for PI and for PID: the pair worth comparing
+  const findings = useBench((s) => s.findings);
+  const suggested = useMemo(() => comparePair(findings, controller), [findings, controller]);
+  const suggestionKey = suggested ? JSON.stringify(suggested) : null;
+  useEffect(() => {
+    if (!suggested) return;
+    setPid({ kc: String(suggested.pid.kc), ti: String(suggested.pid.ti), td: String(suggested.pid.td) });
+    setPi({ kc: String(suggested.pi.kc), ti: String(suggested.pi.ti) });
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [suggestionKey]);
   const focus = useBench((s) => s.focus);
   // the hand-over path's "proof tests" stage opens the comparison on the site proof test
   useEffect(() => {
@@ -178,6 +190,11 @@ export function ExperimentsPanel({ baseDrill, controller, seed, state, start, ca
           <input aria-label="PID Kc" value={pid.kc} onChange={(e) => setPid({ ...pid, kc: e.target.value })} className="num rounded-sm border border-rule-strong bg-paper px-1 py-1 text-right" />
           <input aria-label="PID Ti" value={pid.ti} onChange={(e) => setPid({ ...pid, ti: e.target.value })} className="num rounded-sm border border-rule-strong bg-paper px-1 py-1 text-right" />
           <input aria-label="PID Td" value={pid.td} onChange={(e) => setPid({ ...pid, td: e.target.value })} className="num rounded-sm border border-rule-strong bg-paper px-1 py-1 text-right" />
+          {suggested ? (
+            <p className="col-span-4 text-ink-faint" data-testid="compare-suggestion">
+              Filled in from {RULE_LABELS[suggested.rule] ?? suggested.rule} on the {suggested.source === "relay" ? "relay result" : "bump model"}, for PI and for PID.
+            </p>
+          ) : null}
         </div>
       ) : null}
       {tab === "map" ? (
