@@ -67,7 +67,7 @@ export function ProofTestBuilder({ baseDrill }: { baseDrill: DrillInput }) {
   });
   const [error, setError] = useState<string | null>(null);
 
-  const useTimeline = () => {
+  const takeTimeline = () => {
     const start = num(startC);
     const sps = steps.split(/[\s,;]+/).filter(Boolean).map(num);
     if (!Number.isFinite(start)) return setError("Working SP: a number of °C.");
@@ -142,7 +142,7 @@ export function ProofTestBuilder({ baseDrill }: { baseDrill: DrillInput }) {
             );
           })}
         </fieldset>
-        <button type="button" onClick={useTimeline} className="rounded-sm border border-ink px-2.5 py-1 font-semibold hover:bg-paper-sunk">
+        <button type="button" onClick={takeTimeline} className="rounded-sm border border-ink px-2.5 py-1 font-semibold hover:bg-paper-sunk">
           Use this timeline
         </button>
       </div>
@@ -212,7 +212,7 @@ function StoredDrillPicker({ baseDrill, onError }: { baseDrill: DrillInput; onEr
   const versions = chosen ? [...chosen.publishedVersions].reverse() : [];
   const v = version && versions.includes(Number(version)) ? Number(version) : (versions[0] ?? null);
 
-  const use = async () => {
+  const takeDrill = async () => {
     if (!chosen || v === null) return;
     setLoading(true);
     try {
@@ -252,7 +252,7 @@ function StoredDrillPicker({ baseDrill, onError }: { baseDrill: DrillInput; onEr
         </select>
       </Field>
       <p className="text-ink-faint">The drill runs on this plant: its plant, sensor chain, final element and cutout are replaced by this plant&apos;s; its timeline and scoring are kept. Check its setpoints suit this plant.</p>
-      <button type="button" onClick={() => void use()} disabled={loading} className="rounded-sm border border-ink px-2.5 py-1 font-semibold hover:bg-paper-sunk disabled:opacity-50">
+      <button type="button" onClick={() => void takeDrill()} disabled={loading} className="rounded-sm border border-ink px-2.5 py-1 font-semibold hover:bg-paper-sunk disabled:opacity-50">
         {loading ? "Loading…" : "Use this drill"}
       </button>
     </div>

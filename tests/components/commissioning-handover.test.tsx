@@ -24,6 +24,7 @@ import { drillSchema } from "@/sim/drill/schema";
 import { runJobs, jobsFor } from "@/sim/experiments/variants";
 import { piVersusPidVariants } from "@/sim/experiments/sweep";
 import { findPreset } from "@/sim/plant/presets";
+import { starterDocument } from "@/components/drills/starters";
 import { outputForSetpoint, powerCurve, staticGainAt, heatUpTime } from "@/sim/tuning/power-curve";
 import { BenchSession } from "@/sim/worker/bench-session";
 import { BenchTests } from "@/sim/worker/bench-tests";
@@ -225,6 +226,38 @@ describe("the hand-over path", () => {
     expect(asked("Go to the relay test")).toBe("relay");
     expect(asked("Go to the proof tests")).toBe("proof");
     expect(asked("Go to the tuning sets")).toBe("tuning-sets");
+  });
+});
+
+describe("the site proof test from a stored drill", () => {
+  it("takes a published version, runs it on this plant and says so", async () => {
+    const drillId = "6b1d2c40-7a1e-4c55-9e0a-3f8d2b6c1a02";
+    const doc = starterDocument("airflow-disturbance", drillId, "Lint on the inlet");
+    const listItem = { id: drillId, title: "Lint on the inlet", ownerName: "Ada", mine: false, sharedWithOrg: true, archivedAt: null, createdAt: "", updatedAt: "", status: "published", latestVersion: 3, draftVersion: null, publishedVersions: [1, 3], lastPublishedAt: "" };
+    const fetchMock = vi.fn(async (url: string) => {
+      const body = url === "/api/drills" ? { drills: [listItem] } : url === `/api/drills/${drillId}/versions/3` ? { version: { drillId, version: 3, status: "published", publishedAt: "", document: drillSchema.parse(doc) } } : null;
+      return new Response(JSON.stringify(body ?? { error: "No such thing." }), { status: body ? 200 : 404 });
+    });
+    vi.stubGlobal("fetch", fetchMock);
+    render(<ProofTestBuilder baseDrill={baseDrill} />, { wrapper: freshSwr });
+    fireEvent.click(screen.getByRole("radio", { name: "a stored drill" }));
+    const version = (await screen.findByLabelText("Published version")) as HTMLSelectElement;
+    expect(version.value).toBe("3"); // the latest published version first
+    await act(async () => fireEvent.click(screen.getByRole("button", { name: "Use this drill" })));
+    const proof = useBench.getState().siteProof!;
+    expect(proof.drillVersion).toEqual({ drillId, version: 3, title: "Lint on the inlet" });
+    expect(proof.label).toBe("Lint on the inlet v3");
+    expect(proof.drill.plant).toEqual(def);
+    expect(proof.drill.cutout).toEqual({ tripPointC: 110 });
+    expect(proof.drill.events).toEqual(drillSchema.parse(doc).events);
+    expect(screen.getByTestId("site-proof-current").textContent).toMatch(/its plant, sensor chain, final element and cutout are this plant's/);
+  });
+
+  it("tells an account without drills to build a timeline instead", async () => {
+    vi.stubGlobal("fetch", vi.fn(async () => new Response(JSON.stringify({ error: "You are not allowed to do that." }), { status: 403 })));
+    render(<ProofTestBuilder baseDrill={baseDrill} />, { wrapper: freshSwr });
+    fireEvent.click(screen.getByRole("radio", { name: "a stored drill" }));
+    expect((await screen.findByText(/Stored drills are not available to this account/)).textContent).toMatch(/build a timeline here instead/);
   });
 });
 
