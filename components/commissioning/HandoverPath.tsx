@@ -6,7 +6,11 @@
  * only reports, the Bench does the work. The record form closes the band.
  */
 import { useState } from "react";
+import useSWR from "swr";
 import { useShallow } from "zustand/react/shallow";
+import type { TuningSetItem } from "@/db/bench-queries";
+import { fetchJson } from "@/components/bench/plants/format";
+import { tuningSetsKey } from "@/components/bench/saved/TuningSets";
 import { useBench, type BenchPanelId } from "@/components/bench/store";
 import { RecordForm } from "./RecordForm";
 import { SafetyNote } from "./SafetyNote";
@@ -34,7 +38,9 @@ const MARK: Record<StageState, { text: string; className: string }> = {
 export function HandoverPath({ plantRef, plantName, origin }: HandoverPathProps) {
   const [recordId, setRecordId] = useState<string | null>(null);
   const s = useBench(useShallow((st) => ({ powerCurve: st.powerCurve ?? st.findings.powerCurve, findings: st.findings, siteProof: st.siteProof, savedTuningSet: st.savedTuningSet, unit: st.units.temperature, requestFocus: st.requestFocus })));
-  const stages = handoverStages({ ...s, recordId });
+  // the same list the record form and the Bench's tuning sets read (one SWR key, one request)
+  const { data } = useSWR<{ tuningSets: TuningSetItem[] }>(tuningSetsKey(plantRef), fetchJson);
+  const stages = handoverStages({ ...s, recordId, tuningSetCount: data ? data.tuningSets.length : null });
   return (
     <section aria-label="Hand-over path" className="space-y-3 rounded-sm border border-rule bg-paper-raised p-4 text-sm">
       <header className="flex flex-wrap items-baseline justify-between gap-2">

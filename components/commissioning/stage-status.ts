@@ -22,6 +22,8 @@ export interface StageInputs {
   findings: BenchFindings;
   siteProof: SiteProof | null;
   savedTuningSet: { id: string; name: string } | null;
+  /** tuning sets stored for this plant (saved earlier or now); null while unknown */
+  tuningSetCount: number | null;
   /** the record written from this flow, if any */
   recordId: string | null;
   unit: TemperatureUnit;
@@ -65,7 +67,9 @@ export function handoverStages(i: StageInputs): Stage[] {
     ? { id: "record", title: "Settle and record", state: "done", summary: "Tuning record written." }
     : i.savedTuningSet
       ? { id: "record", title: "Settle and record", state: "under-way", summary: `Tuning set "${i.savedTuningSet.name}" saved; write the tuning record.` }
-      : { id: "record", title: "Settle and record", state: "open", summary: "Save the tuning you settle on as a tuning set, then write the record." };
+      : i.tuningSetCount
+        ? { id: "record", title: "Settle and record", state: "under-way", summary: `${i.tuningSetCount} tuning set${i.tuningSetCount === 1 ? "" : "s"} stored for this plant: save the one you settle on, or pick it on the record.` }
+        : { id: "record", title: "Settle and record", state: "open", summary: "Save the tuning you settle on as a tuning set, then write the record." };
 
   return [power, relay, proof, record];
 }
