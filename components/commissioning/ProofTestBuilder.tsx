@@ -12,7 +12,7 @@ import { fetchJson } from "@/components/bench/plants/format";
 import { useBench } from "@/components/bench/store";
 import { drillSchema, type DrillInput } from "@/sim/drill/schema";
 import { resolvePlant } from "@/sim/drill/resolve";
-import { droppedEvents, drillOnPlant, ENCLOSURE_ONLY, ladderDrill, ladderLabel, ladderProblem, reachWarnings, type LadderSpec, type SiteDisturbance } from "./proof-drill";
+import { droppedEvents, drillOnPlant, ENCLOSURE_ONLY, lengthWarning, ladderDrill, ladderLabel, ladderProblem, reachWarnings, type LadderSpec, type SiteDisturbance } from "./proof-drill";
 
 const num = (s: string) => Number(s.trim().replace(",", "."));
 const small = "num w-16 rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-right text-xs";
@@ -92,7 +92,7 @@ export function ProofTestBuilder({ baseDrill }: { baseDrill: DrillInput }) {
   };
 
   const setRow = (kind: Kind, patch: Partial<Row>) => setRows((r) => ({ ...r, [kind]: { ...r[kind], ...patch } }));
-  const warnings = siteProof ? reachWarnings(siteProof.drill, baseDrill) : [];
+  const warnings = siteProof ? [...reachWarnings(siteProof.drill, baseDrill), lengthWarning(siteProof.drill)].filter((w): w is string => !!w) : [];
 
   return (
     <div className="space-y-2 rounded-sm border border-rule p-2 text-xs" data-testid="site-proof-builder">

@@ -92,7 +92,13 @@ export interface LadderSpec {
   disturbances: { disturbance: SiteDisturbance; holdS: number }[];
 }
 
-export const MAX_PROOF_DURATION_S = 24 * 3600;
+/** The longest proof test a tuning record re-runs on the server (app/_lib/records/proof-run.ts). */
+export const MAX_PROOF_DURATION_S = 12 * 3600;
+
+/** A stored drill may be longer than a record can carry; the technician hears it before running it. */
+export function lengthWarning(drill: DrillInput): string | null {
+  return drill.durationS > MAX_PROOF_DURATION_S ? `This test runs ${(drill.durationS / 3600).toFixed(1)} h; a tuning record re-runs proof tests of at most ${MAX_PROOF_DURATION_S / 3600} h, so it cannot go on the record.` : null;
+}
 
 export function disturbanceLabel(d: SiteDisturbance): string {
   switch (d.kind) {

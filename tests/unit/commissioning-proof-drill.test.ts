@@ -3,7 +3,7 @@
 // drills are checked with the engine's own schema and run by the engine (runDrill).
 import { describe, expect, it } from "vitest";
 import { BENCH_START_TUNING, benchDrill, outputHolding } from "@/components/bench/bench-drill";
-import { droppedEvents, drillOnPlant, ladderDrill, ladderLabel, ladderProblem, reachWarnings, type LadderSpec } from "@/components/commissioning/proof-drill";
+import { droppedEvents, drillOnPlant, ladderDrill, lengthWarning, ladderLabel, ladderProblem, reachWarnings, type LadderSpec } from "@/components/commissioning/proof-drill";
 import { starterDocument } from "@/components/drills/starters";
 import { runDrill } from "@/sim/drill/run-drill";
 import { drillSchema } from "@/sim/drill/schema";
@@ -81,7 +81,7 @@ describe("ladderDrill", () => {
   it("refuses what cannot run: nothing to do, a zero watch time, too long, enclosure disturbances on a twin", () => {
     expect(ladderProblem(presetBase, { leadInS: 0, steps: [], disturbances: [] })).toMatch(/at least one/);
     expect(ladderProblem(presetBase, { leadInS: 0, steps: [{ setpointC: 70, holdS: 0 }], disturbances: [] })).toMatch(/watch time/);
-    expect(ladderProblem(presetBase, { leadInS: 0, steps: [{ setpointC: 70, holdS: 25 * 3600 }], disturbances: [] })).toMatch(/within 24 h/);
+    expect(ladderProblem(presetBase, { leadInS: 0, steps: [{ setpointC: 70, holdS: 13 * 3600 }], disturbances: [] })).toMatch(/within 12 h/);
     expect(ladderProblem(twinBase, spec)).toMatch(/transfer-function model: door open 60 s has no effect/);
     const ok = ladderDrill(twinBase, { leadInS: 60, steps: [{ setpointC: 75, holdS: 3600 }], disturbances: [{ disturbance: { kind: "ambient", temperatureC: 15, forS: 1800 }, holdS: 3600 }] });
     expect(ok.events?.[1]).toEqual({ type: "ambient", timeS: 3660, temperatureC: 15, durationS: 1800 });
@@ -111,6 +111,11 @@ describe("drillOnPlant", () => {
     expect(moved.events).toEqual([]);
     expect(moved.plant).toEqual(twin);
     expect(moved.sensor).toBeUndefined(); // the twin's Bench run uses the chain defaults here
+  });
+
+  it("warns when a drill is longer than a record re-runs", () => {
+    expect(lengthWarning({ ...airflow, durationS: 13 * 3600 })).toMatch(/13\.0 h; a tuning record re-runs proof tests of at most 12 h/);
+    expect(lengthWarning(airflow)).toBeNull();
   });
 
   it("warns when a setpoint is beyond this plant's reach or near its cutout", () => {
