@@ -8,7 +8,8 @@ import { z } from "zod";
 import { ActionRefused, defineAction, type ActionResult } from "@/app/_lib/action";
 import { setPlantShared } from "@/app/_lib/bench-store";
 import { AccessDenied, authorize } from "@/app/_lib/guard";
-import { acceptTwin as accept, sizeLimitMessage } from "@/app/_lib/twins/accept-twin";
+import { acceptTwin as accept } from "@/app/_lib/twins/accept-twin";
+import { sizeLimitMessage } from "@/app/_lib/twins/upload-limit";
 import { MAX_UPLOAD_BYTES } from "@/sim/import";
 
 export type AcceptTwinResult = { ok: true; message: string; id: string } | { ok: false; error: string };

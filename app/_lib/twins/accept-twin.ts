@@ -18,6 +18,7 @@ import { decodeLogBytes } from "./decode-log";
 import { identificationRecord } from "./identification-record";
 import { identifyLog } from "./identify-log";
 import { twinDefinition, type CandidateKind } from "./twin-definition";
+import { sizeLimitMessage } from "./upload-limit";
 
 export interface AcceptTwinInput {
   fileName: string;
@@ -31,11 +32,6 @@ export interface AcceptTwinInput {
   ambientC?: number | null;
   shared?: boolean;
 }
-
-const megabytes = (n: number) => String(+(n / (1024 * 1024)).toFixed(1));
-
-export const sizeLimitMessage = (byteSize: number) =>
-  `The file is ${megabytes(byteSize)} MB; the limit is ${megabytes(MAX_UPLOAD_BYTES)} MB (${MAX_UPLOAD_BYTES.toLocaleString("en-GB")} bytes). Trim the log to the bump test.`;
 
 // What a file name may carry into a download header: no path, no control characters.
 function cleanFileName(raw: string): string {
