@@ -18,7 +18,9 @@ import { plantsFor } from "@/db/bench-queries";
 import { getDb } from "@/db/client";
 import { dataUploads, organizations, plants, users } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
-import { MAX_UPLOAD_BYTES, type LogMappingInput } from "@/sim/import";
+import { readFileSync } from "node:fs";
+import { guessMappingForText, MAX_UPLOAD_BYTES, type LogMappingInput } from "@/sim/import";
+import { decodeLogBytes } from "@/app/_lib/twins/decode-log";
 import { uniqueEmail } from "./helpers";
 
 // The SOPDT fit is always made by the engine; to reach "the chosen SOPDT fit is missing" the
@@ -243,6 +245,43 @@ describe("refusals write nothing", () => {
     } finally {
       control.dropSopdt = false;
     }
+  });
+});
+
+describe("the example logs (public/samples, invented data)", () => {
+  // expected figures: the generator's parameters as public/samples/README.md states them
+  const cases = [
+    { file: "dryer-bump-irregular.csv", gain: 1.1, tau1: 300, tau2: 60, theta: 30 },
+    { file: "cabinet-bump-decimal-comma.csv", gain: 0.45, tau1: 420, tau2: 15, theta: 60 },
+    { file: "oven-bump-fahrenheit.tsv", gain: 2.2 / 1.8, tau1: 180, tau2: 20, theta: 25 },
+  ];
+  const guessed = (bytes: Buffer) => {
+    const d = decodeLogBytes(bytes);
+    if (!d.ok) throw new Error(d.message);
+    const g = guessMappingForText(d.text);
+    if (!g.ok) throw new Error(g.message);
+    return g.mapping;
+  };
+
+  it.each(cases)("$file with the guessed mapping gives an SOPDT twin near the generator's model", async ({ file, gain, tau1, theta }) => {
+    const bytes = readFileSync(`public/samples/${file}`);
+    const { plantId } = await acceptTwin(owner, input(bytes, { fileName: file, mapping: guessed(bytes), choice: "sopdt", name: file }));
+    const [plant] = await db().select().from(plants).where(eq(plants.id, plantId));
+    const def = plant.definition as { gainCPerPercent: number; timeConstantsS: number[]; deadTimeS: number };
+    expect(Math.abs(def.gainCPerPercent / gain - 1)).toBeLessThan(0.03);
+    expect(Math.abs(def.timeConstantsS[0] / tau1 - 1)).toBeLessThan(0.05);
+    expect(Math.abs(def.deadTimeS - theta)).toBeLessThan(5);
+    expect(await reidentify(owner, plantId)).toMatchObject({ reproduced: true });
+  });
+
+  it.each([
+    ["broken-no-step.csv", /^No step in OUT/],
+    ["broken-pv-flat.csv", /^PV is flat/],
+    ["broken-non-numeric.csv", /^Line 14, column "pv_C": "Err" is not a number/],
+    ["broken-time-backwards.csv", /^Line 43: time does not increase/],
+  ] as const)("%s is refused with its message and writes nothing", async (file, message) => {
+    const bytes = readFileSync(`public/samples/${file}`);
+    await expectRefused(() => acceptTwin(owner, input(bytes, { fileName: file, mapping: guessed(bytes) })), message);
   });
 });
 

@@ -47,7 +47,8 @@ export function reduceForFit(r: StepRecord, maxPoints = MAX_FIT_POINTS): { recor
   const step = detectStep(r);
   const split = step ? step.index : 0;
   const raw = Math.min(n - split, Math.floor(maxPoints / 3));
-  const k = Math.ceil((n - raw) / (maxPoints - raw));
+  // two block-mean segments (before the step, after the raw rows): each may end in a partial block
+  const k = Math.ceil((n - raw) / (maxPoints - raw - 2));
   const acc = { t: [] as number[], out: [] as number[], pv: [] as number[] };
   blockMeans(r, 0, split, k, acc);
   blockMeans(r, split, split + raw, 1, acc);
