@@ -87,6 +87,8 @@ export interface FreshIds {
   publishedDrillId: string;
   /** a started (not submitted) attempt of the owner (cohort A's trainee) on the fixture assignment */
   startedAttemptId: string;
+  /** an unsigned tuning record of the owner (shared plant, the fixture tuning set) */
+  recordId: string;
 }
 export type FreshKind = keyof FreshIds;
 
@@ -117,6 +119,8 @@ export interface MatrixFixtures {
   assignmentId: string;
   /** the owner's (cohort A trainee's) verified attempt of that assignment */
   verifiedAttemptId: string;
+  /** the owner's unsigned tuning record of the shared plant */
+  recordId: string;
   presetId: string;
   /** the password of every fixture user (the acting user's current password) */
   password: string;
@@ -285,6 +289,20 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     ],
   },
 
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/records/[recordId]/pdf",
+    rule: "signed-in users of the record's organisation (records are hand-over documents shared within it); 404 otherwise",
+    cases: [{ label: "the owner's record", allowed: who.demoOrg, request: (fx) => ({ url: `/api/records/${fx.recordId}/pdf` }) }],
+  },
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/records/[recordId]/traces",
+    rule: "signed-in users of the record's organisation; 404 otherwise",
+    cases: [{ label: "the owner's record", allowed: who.demoOrg, marker: (fx) => fx.recordId, request: (fx) => ({ url: `/api/records/${fx.recordId}/traces` }) }],
+  },
   // ---------------- server actions: accounts ----------------
   {
     kind: "action",
@@ -649,5 +667,40 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     name: "leaveFeedback",
     rule: "instructors of the attempt's cohort and its organisation's admins",
     cases: [{ label: "the owner's verified attempt", allowed: who.cohortStaff, form: (fx) => ({ attemptId: fx.verifiedAttemptId, body: `Good recovery after the door opened. ${fx.unique}` }) }],
+  },
+  // ---------------- server actions: tuning records ----------------
+  {
+    kind: "action",
+    module: "app/(app)/records/actions.ts",
+    name: "createTuningRecord",
+    rule: "any signed-in user, from their own tuning set on a plant they may read",
+    cases: [
+      {
+        label: "from the owner's tuning set of the shared plant",
+        allowed: who.owner,
+        form: (fx) => ({ payload: json({ plantRef: plantRef(fx.sharedPlantId), tuningSetId: fx.tuningSetId, title: `Record ${fx.unique}`, proofTests: [] }) }),
+      },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/records/actions.ts",
+    name: "updateTuningRecord",
+    rule: "the author only, until sign-off",
+    cases: [{ label: "the owner's record", allowed: who.owner, form: (fx) => ({ recordId: fx.recordId, title: `Record ${fx.unique}`, notes: "" }) }],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/records/actions.ts",
+    name: "signOffTuningRecord",
+    rule: "the author only, once",
+    cases: [
+      {
+        label: "an unsigned record of the owner",
+        allowed: who.owner,
+        fresh: ["recordId"],
+        form: (fx) => ({ recordId: fx.fresh.recordId, name: "Fixture Signer", date: new Date().toISOString().slice(0, 10) }),
+      },
+    ],
   },
 ];

@@ -16,6 +16,7 @@ import { hashToken, newLinkToken, newUserId } from "@/app/_lib/tokens";
 import { getDb } from "@/db/client";
 import { assignments, attempts, cohortMemberships, cohorts, drillVersions, invitations, organizations, passwordResetTokens, sessions, users, type UserRole } from "@/db/schema";
 import { startAttempt } from "@/app/_lib/classroom/attempts";
+import { createTuningRecord } from "@/app/_lib/records/create-record";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
@@ -146,6 +147,8 @@ export async function buildWorld(): Promise<MatrixWorld> {
     })
     .returning();
   ownIds.push(assignment.id, verified.id);
+  const recordId = await fixtureRecord(owner, sharedPlant.id, tuningSet.id);
+  ownIds.push(recordId);
 
   return {
     fixtures: {
@@ -162,6 +165,7 @@ export async function buildWorld(): Promise<MatrixWorld> {
       foreignInstructorId: userIds.foreignInstructor!,
       assignmentId: assignment.id,
       verifiedAttemptId: verified.id,
+      recordId,
       presetId: PRESET,
       password: FIXTURE_PASSWORD,
     },
@@ -173,6 +177,11 @@ export async function buildWorld(): Promise<MatrixWorld> {
     drillOwner,
     passwordHash,
   };
+}
+
+/** An unsigned tuning record of the owner from the fixture tuning set (no proof tests: quick). */
+async function fixtureRecord(owner: BenchUser, plantId: string, tuningSetId: string): Promise<string> {
+  return (await createTuningRecord(owner, { plantRef: `plant:${plantId}`, tuningSetId, title: `Fixture record ${uniqueText()}`, proofTests: [] })).id;
 }
 
 /** A drill of the owner shared within the organisation: "draft v1", "published v1", or "published v1 and draft v2". */
@@ -209,6 +218,7 @@ const FRESH_KINDS: readonly FreshKind[] = [
   "drillId",
   "publishedDrillId",
   "startedAttemptId",
+  "recordId",
 ];
 
 /** Makes the fresh things a case asks for; reading one it did not ask for throws. */
@@ -276,6 +286,9 @@ export async function makeFresh(world: MatrixWorld, kinds: readonly FreshKind[])
         break;
       case "startedAttemptId":
         made.startedAttemptId = (await startAttempt({ id: world.owner.id, organizationId: world.demoOrgId, role: "trainee" }, world.fixtures.assignmentId)).attemptId;
+        break;
+      case "recordId":
+        made.recordId = await fixtureRecord(world.owner, world.fixtures.sharedPlantId, world.fixtures.tuningSetId);
         break;
       default: {
         const never: never = kind;
