@@ -9,6 +9,7 @@ import { cohortMemberships, cohorts, organizations, users } from "./schema";
 import { DEMO_COHORT, DEMO_ORGANIZATION, DEMO_PASSWORD, demoPeople } from "./demo-people";
 import { seedDemoDrills } from "./seed-drills";
 import { seedDemoClassroom } from "./seed-classroom";
+import { seedDemoTwins } from "./seed-twins";
 
 export { DEMO_COHORT, DEMO_ORGANIZATION, DEMO_PASSWORD, demoPeople } from "./demo-people";
 
@@ -54,6 +55,7 @@ export async function seedDemo(url: string): Promise<void> {
   }
   await seedDemoDrills(url);
   await seedDemoClassroom(url);
+  await seedDemoTwins(url);
 }
 
 if (process.argv[1]?.endsWith("seed.ts")) {

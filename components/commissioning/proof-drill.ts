@@ -103,18 +103,20 @@ export function lengthWarning(drill: DrillInput): string | null {
 export function disturbanceLabel(d: SiteDisturbance): string {
   switch (d.kind) {
     case "inlet-blockage":
-      return `inlet ${d.percent} % blocked for ${minutes(d.forS)}`;
+      return `inlet ${num(d.percent)} % blocked for ${minutes(d.forS)}`;
     case "door-open":
       return `door open ${d.forS} s`;
     case "cold-load":
-      return `cold load ${d.massKg} kg at ${d.temperatureC} °C`;
+      return `cold load ${num(d.massKg)} kg at ${num(d.temperatureC)} °C`;
     case "ambient":
-      return `ambient ${d.temperatureC} °C for ${minutes(d.forS)}`;
+      return `ambient ${num(d.temperatureC)} °C for ${minutes(d.forS)}`;
     case "supply-voltage":
-      return `supply ${d.percentOfNominal} % for ${minutes(d.forS)}`;
+      return `supply ${num(d.percentOfNominal)} % for ${minutes(d.forS)}`;
   }
 }
 
+/** a figure as a person would write it (no binary-fraction tails such as 41.998901 °C) */
+const num = (x: number) => String(+x.toFixed(2));
 const minutes = (s: number) => (s % 60 === 0 ? `${s / 60} min` : `${s} s`);
 
 function eventOf(d: SiteDisturbance, timeS: number): DrillEvent {
