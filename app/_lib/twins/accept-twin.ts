@@ -33,10 +33,15 @@ export interface AcceptTwinInput {
   shared?: boolean;
 }
 
+// PostgreSQL text and jsonb hold neither NUL nor lone UTF-16 surrogates: what a person typed is
+// kept readable rather than refused (a lone surrogate becomes U+FFFD, as a browser would send it).
+const loneSurrogate = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g;
+const storable = (s: string, keepLines: boolean) => s.replace(loneSurrogate, "\ufffd").replace(keepLines ? /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g : /[\u0000-\u001f\u007f]/g, "");
+
 // What a file name may carry into a download header: no path, no control characters.
 function cleanFileName(raw: string): string {
   const base = raw.split(/[\\/]/).pop() ?? "";
-  return base.replace(/[\u0000-\u001f\u007f]/g, "").trim();
+  return storable(base, false).trim();
 }
 
 const fieldsSchema = z.object({
@@ -60,8 +65,15 @@ const fieldsSchema = z.object({
     .max(150, "Ambient must lie between −60 and 150 °C.")
     .nullable()
     .default(null),
-  name: z.string({ error: "Give the twin a name." }).trim().min(1, "Give the twin a name.").max(120, "Keep the twin's name under 120 characters."),
-  description: z.string().trim().max(4000, "Keep the description under 4000 characters.").default(""),
+  name: z
+    .string({ error: "Give the twin a name." })
+    .transform((v) => storable(v, false))
+    .pipe(z.string().trim().min(1, "Give the twin a name.").max(120, "Keep the twin's name under 120 characters.")),
+  description: z
+    .string()
+    .default("")
+    .transform((v) => storable(v, true))
+    .pipe(z.string().trim().max(4000, "Keep the description under 4000 characters.")),
   shared: z.boolean().default(false),
 });
 
