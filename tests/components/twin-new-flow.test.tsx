@@ -33,7 +33,7 @@ class FakeWorker {
   }
 }
 
-function fileOf(bytes: Uint8Array | string, name: string): File {
+function fileOf(bytes: Uint8Array<ArrayBuffer> | string, name: string): File {
   const f = new File([bytes], name, { type: "text/csv" });
   // jsdom's File lacks arrayBuffer in some versions: read through a Response
   if (typeof f.arrayBuffer !== "function") Object.defineProperty(f, "arrayBuffer", { value: () => new Response(f).arrayBuffer() });
