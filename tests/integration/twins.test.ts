@@ -37,6 +37,22 @@ vi.mock("@/sim/tuning/identify", async (importOriginal) => {
   };
 });
 
+// The server action runs outside a Next request here: the signed-in user comes from the test,
+// and revalidation is recorded instead of done.
+const session = vi.hoisted(() => ({ user: null as null | { id: string; organizationId: string } }));
+vi.mock("@/app/_lib/guard", async (importOriginal) => {
+  const m = await importOriginal<typeof import("@/app/_lib/guard")>();
+  return {
+    ...m,
+    authorize: async () => {
+      if (!session.user) throw new m.AccessDenied("signed-out");
+      return session.user;
+    },
+  };
+});
+const revalidated = vi.hoisted(() => [] as string[]);
+vi.mock("next/cache", () => ({ revalidatePath: (p: string) => revalidated.push(p) }));
+
 const db = () => getDb();
 
 async function makeUser(organizationId: string, name: string, passwordHash: string): Promise<BenchUser> {
@@ -282,6 +298,50 @@ describe("the example logs (public/samples, invented data)", () => {
   ] as const)("%s is refused with its message and writes nothing", async (file, message) => {
     const bytes = readFileSync(`public/samples/${file}`);
     await expectRefused(() => acceptTwin(owner, input(bytes, { fileName: file, mapping: guessed(bytes) })), message);
+  });
+});
+
+describe("the acceptTwin server action (FormData)", () => {
+  const formOf = (fields: Record<string, string>, file?: File) => {
+    const fd = new FormData();
+    if (file) fd.set("file", file);
+    for (const [k, v] of Object.entries(fields)) fd.set(k, v);
+    return fd;
+  };
+  const good = () => ({ mapping: JSON.stringify(MAPPING), choice: "fopdt", name: "Action twin", description: "", ambientC: "", shared: "false" });
+
+  it("saves from the posted File and answers the new twin's id; revalidates the twins and the Bench", async () => {
+    const { acceptTwin: action } = await import("@/app/(app)/twins/actions");
+    session.user = owner;
+    const text = toCsv(fopdtRows());
+    const before = await rowCounts();
+    const r = await action(null, formOf({ ...good(), ambientC: "20,5", shared: "true" }, new File([text], "action.csv")));
+    expect(r).toMatchObject({ ok: true, message: 'Twin "Action twin" saved.' });
+    if (!r.ok) return;
+    expect(await rowCounts()).toEqual({ uploads: before.uploads + 1, plants: before.plants + 1 });
+    const [plant] = await db().select().from(plants).where(eq(plants.id, r.id));
+    expect(plant).toMatchObject({ shared: true, origin: "twin" });
+    expect((plant.definition as { ambientC: number }).ambientC).toBe(20.5);
+    expect(revalidated).toEqual(expect.arrayContaining(["/twins", "/bench", `/twins/${r.id}`]));
+  });
+
+  it("refuses without a file, over the limit (before reading), with a broken mapping, or signed out — writing nothing", async () => {
+    const { acceptTwin: action } = await import("@/app/(app)/twins/actions");
+    const text = toCsv(fopdtRows());
+    const before = await rowCounts();
+    session.user = owner;
+    expect(await action(null, formOf(good()))).toEqual({ ok: false, error: "No file was sent: choose the log file." });
+    const big = new File(["x"], "big.csv");
+    Object.defineProperty(big, "size", { value: MAX_UPLOAD_BYTES + 10 });
+    const read = vi.spyOn(big, "arrayBuffer");
+    expect(await action(null, formOf(good(), big))).toMatchObject({ ok: false, error: expect.stringContaining("the limit is 2 MB") });
+    expect(read).not.toHaveBeenCalled();
+    expect(await action(null, formOf({ ...good(), mapping: "{oops" }, new File([text], "a.csv")))).toEqual({ ok: false, error: "The column mapping is not JSON." });
+    expect(await action(null, formOf({ ...good(), ambientC: "warm" }, new File([text], "a.csv")))).toEqual({ ok: false, error: "Ambient must be a number in °C (or left empty)." });
+    expect(await action(null, formOf({ ...good(), choice: "pid" }, new File([text], "a.csv")))).toEqual({ ok: false, error: "Choose the FOPDT or the SOPDT candidate." });
+    session.user = null;
+    expect(await action(null, formOf(good(), new File([text], "a.csv")))).toEqual({ ok: false, error: "Sign in first." });
+    expect(await rowCounts()).toEqual(before);
   });
 });
 
