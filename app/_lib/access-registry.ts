@@ -10,6 +10,8 @@
 // say who may use it and give a valid call built from the fixture ids (MatrixFixtures); when the
 // call consumes something (deletes a row, spends a token), ask for a fresh one with `fresh`.
 import { randomUUID } from "node:crypto";
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 
 // ---- who ----
@@ -121,6 +123,10 @@ export interface MatrixFixtures {
   verifiedAttemptId: string;
   /** the owner's unsigned tuning record of the shared plant */
   recordId: string;
+  /** the upload behind the owner's private twin */
+  privateUploadId: string;
+  /** the upload behind the owner's twin shared within the demo organisation */
+  sharedUploadId: string;
   presetId: string;
   /** the password of every fixture user (the acting user's current password) */
   password: string;
@@ -166,8 +172,8 @@ export interface RouteEntry {
 export interface ActionCase {
   label: string;
   allowed: readonly Actor[];
-  /** the FormData fields of a valid call */
-  form: (fx: MatrixFixtures) => Record<string, string>;
+  /** the FormData fields of a valid call (a File for an upload) */
+  form: (fx: MatrixFixtures) => Record<string, string | File>;
   fresh?: readonly FreshKind[];
   /** success is this redirect (the URL, or a pattern it matches) instead of { ok: true } */
   redirectsTo?: string | RegExp;
@@ -211,6 +217,13 @@ const controller = { kind: "pid", form: "standard", kc: 4, ti: 300, td: 30 };
 const json = (value: unknown) => JSON.stringify(value);
 const plantRef = (id: string) => `plant:${id}`;
 const q = encodeURIComponent;
+/** An example log (invented data, public/samples) and the mapping it is read with, for upload calls. */
+export const SAMPLE_LOG = {
+  fileName: "cabinet-bump-decimal-comma.csv",
+  mapping: { delimiter: ";", decimalMark: ",", headerRow: true, columns: { time: 0, out: 1, pv: 2, sp: null, mode: null }, timeFormat: "timestamp", temperatureUnit: "C" },
+  bytes: () => readFileSync(path.join(process.cwd(), "public/samples/cabinet-bump-decimal-comma.csv")),
+} as const;
+const sampleLogFile = (name: string) => new File([new Uint8Array(SAMPLE_LOG.bytes())], name, { type: "text/csv" });
 const toNewDrill = /^\/drills\/[0-9a-f-]{36}$/;
 const toAttempt = /^\/attempts\/[0-9a-f-]{36}$/;
 /** A valid submission of an attempt (the replay, not this claim, decides its score). */
@@ -302,6 +315,17 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     path: "/api/records/[recordId]/traces",
     rule: "signed-in users of the record's organisation; 404 otherwise",
     cases: [{ label: "the owner's record", allowed: who.demoOrg, marker: (fx) => fx.recordId, request: (fx) => ({ url: `/api/records/${fx.recordId}/traces` }) }],
+  },
+  {
+    kind: "route",
+    method: "GET",
+    path: "/api/uploads/[uploadId]",
+    rule: "the uploader, and whoever may read a twin made from the upload; 404 otherwise",
+    cases: [
+      { label: "the owner's private twin's log", allowed: who.owner, request: (fx) => ({ url: `/api/uploads/${fx.privateUploadId}` }) },
+      { label: "a shared twin's log", allowed: who.demoOrg, request: (fx) => ({ url: `/api/uploads/${fx.sharedUploadId}` }) },
+      { label: "no such upload", allowed: who.nobody, request: () => ({ url: `/api/uploads/${randomUUID()}` }) },
+    ],
   },
   // ---------------- server actions: accounts ----------------
   {
@@ -667,6 +691,38 @@ export const ACCESS_REGISTRY: readonly RegistryEntry[] = [
     name: "leaveFeedback",
     rule: "instructors of the attempt's cohort and its organisation's admins",
     cases: [{ label: "the owner's verified attempt", allowed: who.cohortStaff, form: (fx) => ({ attemptId: fx.verifiedAttemptId, body: `Good recovery after the door opened. ${fx.unique}` }) }],
+  },
+  // ---------------- server actions: twins ----------------
+  {
+    kind: "action",
+    module: "app/(app)/twins/actions.ts",
+    name: "acceptTwin",
+    rule: "any signed-in user, as the owner of the new twin and its upload",
+    cases: [
+      {
+        label: "an example log, FOPDT",
+        allowed: who.signedIn,
+        form: (fx) => ({
+          file: sampleLogFile(`${fx.unique}.csv`),
+          mapping: json(SAMPLE_LOG.mapping),
+          choice: "fopdt",
+          name: `Twin ${fx.unique}`,
+          description: "",
+          ambientC: "",
+          shared: "false",
+        }),
+      },
+    ],
+  },
+  {
+    kind: "action",
+    module: "app/(app)/twins/actions.ts",
+    name: "setTwinShared",
+    rule: "the owner only",
+    cases: [
+      { label: "keep the shared plant shared", allowed: who.owner, form: (fx) => ({ id: fx.sharedPlantId, shared: "true" }) },
+      { label: "share a private plant", allowed: who.owner, fresh: ["plantId"], form: (fx) => ({ id: fx.fresh.plantId, shared: "true" }) },
+    ],
   },
   // ---------------- server actions: tuning records ----------------
   {

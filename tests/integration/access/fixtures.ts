@@ -19,7 +19,8 @@ import { startAttempt } from "@/app/_lib/classroom/attempts";
 import { createTuningRecord } from "@/app/_lib/records/create-record";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import ladder from "@/sim/examples/setpoint-ladder.json";
-import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
+import { SAMPLE_CABINET, SAMPLE_LOG } from "@/app/_lib/access-registry";
+import { acceptTwin } from "@/app/_lib/twins/accept-twin";
 
 export const FIXTURE_PASSWORD = "access-matrix-password";
 export const MARKER = "access-matrix";
@@ -149,6 +150,11 @@ export async function buildWorld(): Promise<MatrixWorld> {
   ownIds.push(assignment.id, verified.id);
   const recordId = await fixtureRecord(owner, sharedPlant.id, tuningSet.id);
   ownIds.push(recordId);
+  const twinOf = (shared: boolean) =>
+    acceptTwin(owner, { fileName: `${uniqueText()}.csv`, bytes: SAMPLE_LOG.bytes(), mapping: SAMPLE_LOG.mapping, choice: "fopdt", name: `Twin ${uniqueText()}`, shared });
+  const privateTwin = await twinOf(false);
+  const sharedTwin = await twinOf(true);
+  ownIds.push(privateTwin.plantId, privateTwin.uploadId, sharedTwin.plantId, sharedTwin.uploadId);
 
   return {
     fixtures: {
@@ -166,6 +172,8 @@ export async function buildWorld(): Promise<MatrixWorld> {
       assignmentId: assignment.id,
       verifiedAttemptId: verified.id,
       recordId,
+      privateUploadId: privateTwin.uploadId,
+      sharedUploadId: sharedTwin.uploadId,
       presetId: PRESET,
       password: FIXTURE_PASSWORD,
     },
