@@ -45,7 +45,11 @@ export function sensorMatching(data: SensorFromData, rangeHighC = 200): SensorMa
   let stepC: number | null = null;
   let bits: number | null = null;
   if (data.noiseSigmaC !== null) {
-    const sdMa = Math.min(5, data.noiseSigmaC * maPerC);
+    // the log's σ already holds the logger's rounding (q²/12 for a uniform quantizer; Widrow & Kollár,
+    // from memory), and the chain adds its own ADC step: take the rounding out so it is not counted twice
+    const q = data.quantizationStepC ?? 0;
+    const sensorSigmaC = Math.sqrt(Math.max(0, data.noiseSigmaC ** 2 - (q * q) / 12));
+    const sdMa = Math.min(5, sensorSigmaC * maPerC);
     sensor.noise = { sdMa };
     sigmaC = sdMa / maPerC;
   }

@@ -76,7 +76,7 @@ export function AcceptTwinForm({
             <input name="ambientC" inputMode="decimal" placeholder="PV before the step" className={input} />
             <span className="num text-ink-faint">°C</span>
           </span>
-          <span className="mt-1 block text-xs text-ink-faint">Optional. Left empty, the PV before the step is taken as ambient.</span>
+          <span className="mt-1 block text-xs text-ink-faint">Optional, in °C (also for a °F log). Left empty, the PV before the step is taken as ambient.</span>
         </label>
       </div>
       <label className="block text-sm">

@@ -116,7 +116,7 @@ function summarise(log: MappedLog, table: LogTable, mapping: LogMapping): LogSum
 export function importLog(text: string, byteSize: number, mapping: LogMapping): ImportResult {
   try {
     if (!(byteSize > 0) || typeof text !== "string" || text.trim() === "") return refuse("empty", "the file is empty: choose the CSV or TSV file the logger wrote");
-    if (byteSize > MAX_UPLOAD_BYTES) return refuse("too-large", `the file is ${mb(byteSize)} MB; the limit is ${mb(MAX_UPLOAD_BYTES)} MB (${groupThousands(MAX_UPLOAD_BYTES)} bytes): trim the log to the bump test`);
+    if (byteSize > MAX_UPLOAD_BYTES) return refuse("too-large", `the file is ${mb(byteSize)} MiB; the limit is ${mb(MAX_UPLOAD_BYTES)} MiB (${groupThousands(MAX_UPLOAD_BYTES)} bytes): trim the log to the bump test`);
     const read = readLogTable(text, { delimiter: mapping.delimiter, headerRow: mapping.headerRow });
     if (!read.ok) return read;
     const mapped = mapLog(read.table, mapping);

@@ -68,7 +68,8 @@ describe("the Bench in the pre-commissioning flow", () => {
     expect(load.drill.plant).toEqual(twin);
     expect(load.drill.initialState).toMatchObject({ setpointC: 72, outPercent: 38 });
     const chain = sensorChainSchema.parse(load.drill.sensor);
-    expect(noiseSigmaC(chain)).toBeCloseTo(0.15, 12);
+    // the chain's σ leaves out the log's rounding, q²/12 (Widrow & Kollár, from memory): its ADC adds its own
+    expect(noiseSigmaC(chain)).toBeCloseTo(Math.sqrt(0.15 ** 2 - 0.1 ** 2 / 12), 12);
     expect(chain.analogInput.bits).toBe(12);
     expect(screen.getByTestId("twin-sensor-note").textContent).toBe("Sensor noise from the uploaded data: σ ≈ 0.15 °C, step 0.1 °C (the Bench's 12-bit input: 0.073 °C)");
     expect(screen.queryByRole("link", { name: "Pre-commission this plant" })).toBeNull();

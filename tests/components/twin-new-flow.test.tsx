@@ -47,7 +47,7 @@ describe("NewTwinFlow", () => {
     Object.defineProperty(big, "size", { value: MAX_UPLOAD_BYTES + 1 });
     const read = vi.spyOn(big, "arrayBuffer");
     fireEvent.change(screen.getByLabelText("Log file"), { target: { files: [big] } });
-    expect((await screen.findByTestId("file-refusal")).textContent).toMatch(/the limit is 2 MB \(2,097,152 bytes\)/);
+    expect((await screen.findByTestId("file-refusal")).textContent).toMatch(/the limit is 2 MiB \(2,097,152 bytes\)/);
     expect(read).not.toHaveBeenCalled();
   });
 

@@ -18,14 +18,14 @@ import { hashPassword } from "@/app/_lib/password";
 import { newUserId } from "@/app/_lib/tokens";
 import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
 import { getDb } from "@/db/client";
-import { dataUploads, organizations, plants, tuningRecords, users } from "@/db/schema";
+import { dataUploads, organizations, plants, tuningRecords, tuningSets, users } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { drillSchema, type DrillInput } from "@/sim/drill/schema";
 import { runDrill } from "@/sim/drill/run-drill";
 import { traceFingerprint } from "@/sim/drill/trace-hash";
 import { findPreset } from "@/sim/plant/presets";
 import ladder from "@/sim/examples/setpoint-ladder.json";
-import { createHash } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
 import { dbRefusal, uniqueEmail } from "./helpers";
 
 const db = () => getDb();
@@ -245,7 +245,33 @@ describe("writing a tuning record", () => {
       /needs 1,980,000 controller samples: at most 864,000 per test/,
     );
     await refused(author, presetRequest({ title: "  " }), "title: Give the record a title.");
+    // a drill version is looked up on the server: a made-up one is refused, not printed
+    await refused(author, presetRequest({ proofTests: [proof(presetDrill(), { drillVersion: { drillId: randomUUID(), version: 1, title: "Made-up drill" } })] }), /names a drill version that is not a published drill of your organisation/);
+    await refused(
+      author,
+      presetRequest({ proofTests: [proof(presetDrill()), proof({ ...presetDrill(), drive: { kind: "continuous" } } as DrillInput)] }),
+      /ran with different final elements/,
+    );
+    await refused(author, presetRequest({ relay: { kind: "relay", ultimateGain: 14, ultimatePeriodS: 260, pvAmplitudeC: 0.9, relayAmplitudePercent: 10, rule: "my-own-rule" } }), /"my-own-rule" is not one of the toolkit's tuning rules/);
     await refused(author, { ...presetRequest(), tuningSetId: "nope" }, "tuningSetId: Save the tuning as a tuning set first.");
+  });
+});
+
+describe("which tuning a proof test ran", () => {
+  it("is said by the server: the tuning set's name only for its exact controller, otherwise PI or PID", async () => {
+    const [set] = await db().select().from(tuningSets).where(eq(tuningSets.id, presetSetId));
+    const exact = set.controller as ProofTestRequest["controller"];
+    const { id } = await createTuningRecord(
+      author,
+      presetRequest({
+        proofTests: [
+          proof(presetDrill(), { controller: exact, tuningLabel: "anything the browser says" }),
+          proof(presetDrill(), { controller: { ...exact, kc: (exact as { kc: number }).kc * 2 } as ProofTestRequest["controller"], tuningLabel: "Cure PID" }),
+        ],
+      }),
+    );
+    const labels = (await recordDetail(author, id))!.document.proofTests.map((t) => t.tuningLabel);
+    expect(labels).toEqual(["Cure PID", "PID (not the record's tuning set)"]);
   });
 });
 

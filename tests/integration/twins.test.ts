@@ -213,7 +213,7 @@ describe("refusals write nothing", () => {
   });
 
   it("a file over the size limit, naming the limit", async () => {
-    await expectRefused(() => acceptTwin(owner, input(Buffer.alloc(MAX_UPLOAD_BYTES + 1, 0x31))), /limit is 2 MB \(2,097,152 bytes\)/);
+    await expectRefused(() => acceptTwin(owner, input(Buffer.alloc(MAX_UPLOAD_BYTES + 1, 0x31))), /limit is 2 MiB \(2,097,152 bytes\)/);
   });
 
   it("a non-numeric cell", async () => {
@@ -234,6 +234,10 @@ describe("refusals write nothing", () => {
 
   it("no step in OUT", async () => {
     await expectRefused(() => acceptTwin(owner, input(bytesOf(toCsv(good().map(([t, , pv]) => [t, "30.0", pv]))))), /no step in OUT/i);
+  });
+
+  it("PV falling when OUT rises (a negative gain): an inverted OUT column is not a heater twin", async () => {
+    await expectRefused(() => acceptTwin(owner, input(bytesOf(toCsv(fopdtRows({ gain: -0.6 }))))), /negative gain.*OUT column is not inverted/);
   });
 
   it("PV flat", async () => {
@@ -334,7 +338,7 @@ describe("the acceptTwin server action (FormData)", () => {
     const big = new File(["x"], "big.csv");
     Object.defineProperty(big, "size", { value: MAX_UPLOAD_BYTES + 10 });
     const read = vi.spyOn(big, "arrayBuffer");
-    expect(await action(null, formOf(good(), big))).toMatchObject({ ok: false, error: expect.stringContaining("the limit is 2 MB") });
+    expect(await action(null, formOf(good(), big))).toMatchObject({ ok: false, error: expect.stringContaining("the limit is 2 MiB") });
     expect(read).not.toHaveBeenCalled();
     expect(await action(null, formOf({ ...good(), mapping: "{oops" }, new File([text], "a.csv")))).toEqual({ ok: false, error: "The column mapping is not JSON." });
     expect(await action(null, formOf({ ...good(), ambientC: "warm" }, new File([text], "a.csv")))).toEqual({ ok: false, error: "Ambient must be a number in °C (or left empty)." });

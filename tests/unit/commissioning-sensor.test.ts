@@ -42,7 +42,8 @@ describe("sensorMatching", () => {
     const m = sensorMatching({ noiseSigmaC: 0.2, quantizationStepC: 0.5 }, 400);
     const chain = sensorChainSchema.parse(m.sensor);
     expect(chain.transmitter.rangeHighC).toBe(400);
-    expect(noiseSigmaC(chain)).toBeCloseTo(0.2, 12);
+    // the log's rounding (q²/12 of a uniform quantizer; Widrow & Kollár, from memory) is taken out of σ
+    expect(noiseSigmaC(chain)).toBeCloseTo(Math.sqrt(0.2 ** 2 - 0.5 ** 2 / 12), 12);
     expect(Math.abs(Math.log2(m.stepC! / 0.5))).toBeLessThanOrEqual(0.5 + 1e-9);
   });
 });

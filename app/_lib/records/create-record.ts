@@ -6,10 +6,12 @@
 // changed meanwhile, and inserts the row, so nothing is written from stale or partial input.
 import { and, eq } from "drizzle-orm";
 import { getDb, type Transaction } from "@/db/client";
-import { dataUploads, plants, tuningRecords, tuningSets } from "@/db/schema";
+import { dataUploads, drillVersions, drills, plants, tuningRecords, tuningSets } from "@/db/schema";
 import { ActionRefused } from "@/app/_lib/action";
 import { firstIssue, parsePlantRef, readablePlant, type BenchUser, type PlantRef } from "@/app/_lib/bench-store";
-import { controllerConfigSchema } from "@/sim/control/config";
+import { controllerConfigSchema, type ControllerConfig } from "@/sim/control/config";
+import type { DriveConfig } from "@/sim/actuator/drive-config";
+import { isModelRule, isUltimateRule } from "@/sim/tuning/rules/catalog";
 import { plantDefinitionSchema } from "@/sim/plant/plant-definition";
 import { findPreset } from "@/sim/plant/presets";
 import { ENGINE_VERSION } from "@/sim/version";
@@ -27,6 +29,8 @@ interface Sources {
   tuningSetId: string;
   tuningSetName: string;
   controller: RecordDocument["controller"];
+  /** the stored drill versions the proof tests name, as the database has them ("drillId@version" → title) */
+  drillTitles: Record<string, string>;
 }
 
 const notFoundPlant = () => new ActionRefused("That plant does not exist.");
@@ -65,15 +69,45 @@ async function readSources(tx: Transaction, user: BenchUser, p: RecordRequestPar
   }
   const controller = controllerConfigSchema.safeParse(set.controller);
   if (!controller.success) throw new ActionRefused(`The tuning set's controller configuration is not valid — ${firstIssue(controller.error)}`);
-  return { ref: canonicalRef(ref), ...plant, tuningSetId: set.id, tuningSetName: set.name, controller: controller.data };
+  const drillTitles: Record<string, string> = {};
+  for (const t of p.proofTests) {
+    if (!t.drillVersion) continue;
+    const key = `${t.drillVersion.drillId}@${t.drillVersion.version}`;
+    // a published version of a drill of the user's organisation; its title is the database's, not the request's
+    const [v] = await tx
+      .select({ title: drills.title })
+      .from(drillVersions)
+      .innerJoin(drills, eq(drills.id, drillVersions.drillId))
+      .where(and(eq(drillVersions.drillId, t.drillVersion.drillId), eq(drillVersions.version, t.drillVersion.version), eq(drillVersions.status, "published"), eq(drills.organizationId, user.organizationId)));
+    if (!v) throw new ActionRefused(`The proof test "${t.label}" names a drill version that is not a published drill of your organisation.`);
+    drillTitles[key] = v.title;
+  }
+  return { ref: canonicalRef(ref), ...plant, tuningSetId: set.id, tuningSetName: set.name, controller: controller.data, drillTitles };
+}
+
+const canonical = (c: ControllerConfig) => JSON.stringify(controllerConfigSchema.parse(c), Object.keys(controllerConfigSchema.parse(c)).sort());
+
+/** Which tuning a proof test ran, said by the server: the tuning set's name only when the controller is exactly the set's. */
+export function proofTuningLabel(controller: ControllerConfig, set: ControllerConfig, setName: string): string {
+  if (canonical(controller) === canonical(set)) return setName;
+  const kind = controller.kind === "pid" ? (controller.td > 0 ? "PID" : "PI") : "on/off";
+  return `${kind} (not the record's tuning set)`;
+}
+
+/** The final element the margins assume: the proof tests' (they must agree), else the engine's default drive. */
+function recordDrive(p: RecordRequestParsed): DriveConfig {
+  const drives = p.proofTests.map((t) => JSON.stringify(t.drill.drive));
+  if (new Set(drives).size > 1) throw new ActionRefused("The proof tests ran with different final elements (heater drive settings): put tests with one drive on a record.");
+  return p.proofTests[0]?.drill.drive ?? { kind: "time-proportioning", cycleTimeS: 2, minOnTimeS: 0, minOffTimeS: 0 };
 }
 
 /** What the record derives from its sources and the request (pure, CPU-bound). */
 export function buildDocument(s: Sources, p: RecordRequestParsed): RecordDocument {
   p.proofTests.forEach((t, i) => checkProofTest(t, i, s.plant.definition, s.plant.name));
+  if (p.relay && !isUltimateRule(p.relay.rule) && !isModelRule(p.relay.rule)) throw new ActionRefused(`"${p.relay.rule}" is not one of the toolkit's tuning rules.`);
   const twinModel = s.plant.origin === "twin" ? modelOfDefinition(s.plant.definition) : null;
   const model = twinModel ?? p.model;
-  const drive = p.proofTests[0]?.drill.drive ?? null;
+  const drive = recordDrive(p);
   // a twin's sensor lag is simulated beside its model; a reported model was fitted to the measured PV and includes it
   const sensorLagS = twinModel && s.plant.definition.kind === "transfer-function" ? s.plant.definition.sensorTimeConstantS : 0;
   const doc: RecordDocument = {
@@ -86,7 +120,13 @@ export function buildDocument(s: Sources, p: RecordRequestParsed): RecordDocumen
     drive,
     powerCurve: p.powerCurve,
     relay: p.relay,
-    proofTests: p.proofTests.map(storedProofTest),
+    proofTests: p.proofTests.map((t) =>
+      storedProofTest({
+        ...t,
+        tuningLabel: proofTuningLabel(t.controller, s.controller, s.tuningSetName),
+        drillVersion: t.drillVersion ? { ...t.drillVersion, title: s.drillTitles[`${t.drillVersion.drillId}@${t.drillVersion.version}`] ?? t.drillVersion.title } : null,
+      }),
+    ),
     engineVersion: ENGINE_VERSION,
   };
   return recordDocumentSchema.parse(doc); // the stored contract, checked before it is written

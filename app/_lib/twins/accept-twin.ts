@@ -96,10 +96,14 @@ export async function acceptTwin(user: BenchUser, input: AcceptTwinInput): Promi
 
   const fit = choice === "sopdt" ? identification.sopdt : identification.fopdt;
   if (!fit) throw new ActionRefused("There is no SOPDT fit for this log: accept the FOPDT candidate.");
+  // a heater loop's PV rises with OUT; a falling response is an inverted OUT column or a cooling loop
+  if (!(fit.model.gainCPerPercent > 0))
+    throw new ActionRefused("PV falls when OUT rises in this log (a negative gain): check that the OUT column is not inverted; a cooling loop cannot be a heater twin.");
 
   let definition;
   try {
-    definition = twinDefinition(fit.model, { outBeforePercent: identification.step.outBefore, pvBeforeC: identification.step.pvBefore }, { name, ambientC });
+    // the fitted baseline, not the mean PV before the step: the twin then starts where the accepted fit does
+    definition = twinDefinition(fit.model, { outBeforePercent: identification.step.outBefore, pvBeforeC: Number.isFinite(fit.baselineC) ? fit.baselineC : identification.step.pvBefore }, { name, ambientC });
   } catch {
     throw new ActionRefused(`The ${choice.toUpperCase()} fit does not make a usable plant (a time constant or the gain is not a finite positive figure): try the other candidate or another log.`);
   }

@@ -48,10 +48,10 @@ describe("importLog refusals: each code, with its message", () => {
     expect(refusal("  \n\n", mapping(), 4).code).toBe("empty");
     expect(refusal("# just a comment\n").code).toBe("empty");
   });
-  it("too-large: states the size and the 2 MB limit", () => {
+  it("too-large: states the size and the 2 MiB limit", () => {
     const r = refusal(log(), mapping(), Math.round(3.1 * 1024 * 1024));
     expect(r.code).toBe("too-large");
-    expect(r.message).toMatch(/the file is 3\.1 MB; the limit is 2 MB/);
+    expect(r.message).toMatch(/the file is 3\.1 MiB; the limit is 2 MiB/);
     expect(importLog(log(), MAX_UPLOAD_BYTES, mapping()).ok).toBe(true); // the limit itself is accepted
   });
   it("unreadable: an unclosed quote, naming the line", () => {
