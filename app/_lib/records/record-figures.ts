@@ -1,6 +1,7 @@
 // The record's figures as labelled text, one source for the page and the PDF so both show the
 // same strings. Text is kept to what the PDF's standard Helvetica can print (WinAnsi): "tau",
 // "theta", "-" rather than Greek letters or the minus sign; ° and ² are available.
+import { RULE_LABELS } from "@/components/bench/tests/labels";
 import type { DriveConfig } from "@/sim/actuator/drive-config";
 import type { ControllerConfig } from "@/sim/control/config";
 import type { ProofTestStored, RecordDocument, RecordModel } from "./record-document";
@@ -162,7 +163,7 @@ export function relayFigures(doc: RecordDocument): Figure[] {
     { key: "ku", label: "Ultimate gain Ku", value: `${num(r.ultimateGain, 4)} %/°C` },
     { key: "pu", label: "Ultimate period Pu", value: `${num(r.ultimatePeriodS, 4)} s` },
     { key: "amplitudes", label: "Amplitudes", value: `PV ${num(r.pvAmplitudeC)} °C, relay ${num(r.relayAmplitudePercent)} %` },
-    { key: "rule", label: "Rule", value: r.rule },
+    { key: "rule", label: "Rule", value: RULE_LABELS[r.rule] ?? r.rule },
   ];
 }
 
