@@ -1,7 +1,7 @@
 // A fit becomes a twin's plant definition (app/_lib/twins/twin-definition.ts), and the small pure
 // helpers around an upload: decoding, checksum, download header, long-log reduction.
 import { describe, expect, it } from "vitest";
-import { attachmentDisposition, logMediaType } from "@/app/_lib/twins/content-disposition";
+import { attachmentDisposition, fileNameSlug, logMediaType } from "@/app/_lib/http/content-disposition";
 import { sha256Hex } from "@/app/_lib/twins/checksum";
 import { decodeLogBytes } from "@/app/_lib/twins/decode-log";
 import { onFullRecord, reduceForFit } from "@/app/_lib/twins/fit-record";
@@ -66,6 +66,12 @@ describe("checksum and download header", () => {
     expect(logMediaType("a.TSV")).toBe("text/tab-separated-values");
     expect(logMediaType("a.csv")).toBe("text/csv");
     expect(logMediaType("a.log")).toBe("application/octet-stream");
+  });
+
+  it("a file name's stem from a title: accents dropped, dashes between ASCII letters and digits", () => {
+    expect(fileNameSlug("Trockner 3 — Übergabe", "x")).toBe("trockner-3-ubergabe");
+    expect(fileNameSlug("°°°", "tuning-record")).toBe("tuning-record");
+    expect(fileNameSlug("a".repeat(100), "x")).toHaveLength(80);
   });
 });
 

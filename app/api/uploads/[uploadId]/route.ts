@@ -1,5 +1,5 @@
 import { guardRoute } from "@/app/_lib/guard";
-import { attachmentDisposition, logMediaType } from "@/app/_lib/twins/content-disposition";
+import { attachmentDisposition, logMediaType } from "@/app/_lib/http/content-disposition";
 import { uploadContent } from "@/app/_lib/twins/twin-queries";
 
 // GET /api/uploads/:uploadId — the original bump-test log exactly as uploaded (an attachment under

@@ -1,5 +1,6 @@
 import { guardRoute } from "@/app/_lib/guard";
 import { recordDetail } from "@/app/_lib/records/record-queries";
+import { attachmentDisposition } from "@/app/_lib/http/content-disposition";
 import { recordFileName } from "@/app/_lib/records/record-filename";
 import { recordPdf } from "@/app/_lib/records/record-pdf";
 
@@ -17,7 +18,7 @@ export async function GET(_request: Request, { params }: { params: Promise<{ rec
   return new Response(new Uint8Array(pdf), {
     headers: {
       "content-type": "application/pdf",
-      "content-disposition": `attachment; filename="${recordFileName(detail.title, "", "pdf")}"`,
+      "content-disposition": attachmentDisposition(recordFileName(detail.title, "", "pdf")),
       "cache-control": "private, no-store",
     },
   });

@@ -1,5 +1,6 @@
 import { guardRoute } from "@/app/_lib/guard";
 import { recordDetail } from "@/app/_lib/records/record-queries";
+import { attachmentDisposition } from "@/app/_lib/http/content-disposition";
 import { recordFileName } from "@/app/_lib/records/record-filename";
 import { recordTracesCsv, TraceMismatch } from "@/app/_lib/records/record-traces-csv";
 
@@ -22,7 +23,7 @@ export async function GET(_request: Request, { params }: { params: Promise<{ rec
   return new Response(csv, {
     headers: {
       "content-type": "text/csv; charset=utf-8",
-      "content-disposition": `attachment; filename="${recordFileName(detail.title, "-traces", "csv")}"`,
+      "content-disposition": attachmentDisposition(recordFileName(detail.title, "-traces", "csv")),
       "cache-control": "private, no-store",
     },
   });

@@ -1,5 +1,6 @@
 import { guardRoute } from "@/app/_lib/guard";
 import { standings, standingsCsv } from "@/app/_lib/classroom/standings";
+import { attachmentDisposition, fileNameSlug } from "@/app/_lib/http/content-disposition";
 
 // GET /api/assignments/:assignmentId/standings/csv?view=best|all — the standings as CSV, for the
 // cohort's instructors and the organisation's admins.
@@ -10,8 +11,8 @@ export async function GET(request: Request, { params }: { params: Promise<{ assi
   const view = new URL(request.url).searchParams.get("view") === "all" ? "all" : "best";
   const body = await standings(user, true, assignmentId, view);
   if (!body) return Response.json({ error: "No such assignment." }, { status: 404 });
-  const name = `standings-${body.assignment.title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "assignment"}-${view}.csv`;
+  const name = `standings-${fileNameSlug(body.assignment.title, "assignment")}-${view}.csv`;
   return new Response(standingsCsv(body), {
-    headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${name}"`, "cache-control": "no-store" },
+    headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": attachmentDisposition(name), "cache-control": "no-store" },
   });
 }
