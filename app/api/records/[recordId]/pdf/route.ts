@@ -1,5 +1,4 @@
-import { guardRoute } from "@/app/_lib/guard";
-import { recordDetail } from "@/app/_lib/records/record-queries";
+import { visibleRecordOr404 } from "@/app/_lib/records/visible-record";
 import { attachmentDisposition } from "@/app/_lib/http/content-disposition";
 import { recordFileName } from "@/app/_lib/records/record-filename";
 import { recordPdf } from "@/app/_lib/records/record-pdf";
@@ -10,10 +9,8 @@ import { recordPdf } from "@/app/_lib/records/record-pdf";
 
 export async function GET(_request: Request, { params }: { params: Promise<{ recordId: string }> }) {
   const { recordId } = await params;
-  const user = await guardRoute();
-  if (user instanceof Response) return user;
-  const detail = await recordDetail(user, recordId);
-  if (!detail) return Response.json({ error: "No such record." }, { status: 404 });
+  const detail = await visibleRecordOr404(recordId);
+  if (detail instanceof Response) return detail;
   const pdf = await recordPdf(detail);
   return new Response(new Uint8Array(pdf), {
     headers: {

@@ -1,5 +1,4 @@
-import { guardRoute } from "@/app/_lib/guard";
-import { recordDetail } from "@/app/_lib/records/record-queries";
+import { visibleRecordOr404 } from "@/app/_lib/records/visible-record";
 import { attachmentDisposition } from "@/app/_lib/http/content-disposition";
 import { recordFileName } from "@/app/_lib/records/record-filename";
 import { recordTracesCsv, TraceMismatch } from "@/app/_lib/records/record-traces-csv";
@@ -9,10 +8,8 @@ import { recordTracesCsv, TraceMismatch } from "@/app/_lib/records/record-traces
 // record's organisation (404 for a missing or foreign record alike; 409 if a re-run no longer matches).
 export async function GET(_request: Request, { params }: { params: Promise<{ recordId: string }> }) {
   const { recordId } = await params;
-  const user = await guardRoute();
-  if (user instanceof Response) return user;
-  const detail = await recordDetail(user, recordId);
-  if (!detail) return Response.json({ error: "No such record." }, { status: 404 });
+  const detail = await visibleRecordOr404(recordId);
+  if (detail instanceof Response) return detail;
   let csv: string;
   try {
     csv = recordTracesCsv(detail);
