@@ -21,6 +21,7 @@ import { drillSchema } from "@/sim/drill/schema";
 import { plantDefinitionSchema } from "@/sim/plant/plant-definition";
 import { findPreset } from "@/sim/plant/presets";
 import { ActionRefused } from "./action";
+import { parsePlantRef, uuidPattern } from "./plant-ref";
 
 /** Who is acting: the signed-in user (SignedInUser satisfies this). */
 export interface BenchUser {
@@ -30,21 +31,7 @@ export interface BenchUser {
 
 // ---- plant references ----
 
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-export type PlantRef = { kind: "preset"; presetId: string } | { kind: "plant"; plantId: string };
-
-export function parsePlantRef(ref: string): PlantRef | null {
-  if (ref.startsWith("preset:")) {
-    const presetId = ref.slice("preset:".length);
-    return presetId ? { kind: "preset", presetId } : null;
-  }
-  if (ref.startsWith("plant:")) {
-    const plantId = ref.slice("plant:".length);
-    return uuidPattern.test(plantId) ? { kind: "plant", plantId: plantId.toLowerCase() } : null;
-  }
-  return null;
-}
+export { parsePlantRef, type PlantRef } from "./plant-ref";
 
 export const presetRef = (presetId: string) => `preset:${presetId}`;
 export const plantRefOf = (plantId: string) => `plant:${plantId}`;

@@ -47,6 +47,7 @@ import { PowerCurvePanel } from "./tests/PowerCurvePanel";
 import { RelayPanel } from "./tests/RelayPanel";
 import type { ProposalOrigin } from "./tests/ProposalView";
 import type { MapMetric } from "@/sim/experiments/tuning-map";
+import { parsePlantRef } from "@/app/_lib/plant-ref";
 
 const DEFAULT_SEED = 20261201;
 
@@ -162,10 +163,12 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id, startPlant, co
   const choosePlant = (ref: string, def: PlantDefinition, title: string) => {
     // the pre-commissioning flow is for one plant: another plant means another flow (or the free Bench)
     if (commissioning && ref !== plantRef) {
-      window.location.assign(ref.startsWith("plant:") ? `/commissioning/${ref.slice("plant:".length)}` : "/bench");
+      const chosen = parsePlantRef(ref);
+      window.location.assign(chosen?.kind === "plant" ? `/commissioning/${chosen.plantId}` : "/bench");
       return;
     }
-    const next: BenchPlant = ref.startsWith("preset:") ? { kind: "preset", presetId: ref.slice("preset:".length) } : ref === startPlant?.ref ? storedPlant(def, startPlant.sensorFromData) : storedPlant(def);
+    const chosen = parsePlantRef(ref);
+    const next: BenchPlant = chosen?.kind === "preset" ? { kind: "preset", presetId: chosen.presetId } : ref === startPlant?.ref ? storedPlant(def, startPlant.sensorFromData) : storedPlant(def);
     setPlantRef(ref);
     setPlant(next);
     setPlantTitle(title);
@@ -318,6 +321,7 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id, startPlant, co
           .join(", ")
       : null;
 
+  const currentRef = parsePlantRef(plantRef);
   const grid = (
     <div className="grid gap-4 xl:grid-cols-[21rem_minmax(0,1fr)_20rem]">
       <aside className="space-y-4">
@@ -326,8 +330,8 @@ export function BenchApp({ initialPresetId = PLANT_PRESETS[0].id, startPlant, co
           <button type="button" onClick={() => setEditing({})} className="mt-2 text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
             Describe a new plant…
           </button>
-          {!commissioning && plantRef.startsWith("plant:") ? (
-            <Link href={`/commissioning/${plantRef.slice("plant:".length)}`} className="ml-3 mt-2 inline-block text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
+          {!commissioning && currentRef?.kind === "plant" ? (
+            <Link href={`/commissioning/${currentRef.plantId}`} className="ml-3 mt-2 inline-block text-xs underline decoration-rule-strong underline-offset-2 hover:decoration-ink">
               Pre-commission this plant
             </Link>
           ) : null}

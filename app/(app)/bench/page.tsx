@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { guardPage } from "@/app/_lib/guard";
-import { isUuid } from "@/app/_lib/bench-store";
+import { parsePlantRef } from "@/app/_lib/plant-ref";
 import { plantFor } from "@/db/bench-queries";
 import { BenchApp } from "@/components/bench/BenchApp";
 import { sensorFromIdentification } from "@/components/bench/sensor-from-data";
@@ -14,13 +14,13 @@ export const metadata: Metadata = { title: "Bench" };
 export default async function BenchPage({ searchParams }: { searchParams: Promise<{ plant?: string | string[] }> }) {
   const user = await guardPage();
   const { plant: requested } = await searchParams;
-  const ref = typeof requested === "string" ? requested : "";
-  if (ref.startsWith("preset:")) {
-    const presetId = ref.slice("preset:".length);
+  const ref = typeof requested === "string" ? parsePlantRef(requested) : null;
+  if (ref?.kind === "preset") {
+    const { presetId } = ref;
     if (PLANT_PRESETS.some((p) => p.id === presetId)) return <BenchApp initialPresetId={presetId} />;
   }
-  const plantId = ref.startsWith("plant:") ? ref.slice("plant:".length) : "";
-  if (isUuid(plantId)) {
+  if (ref?.kind === "plant") {
+    const { plantId } = ref;
     const plant = await plantFor(user, plantId);
     if (plant && plant.origin !== "preset") {
       const sensorFromData = plant.origin === "twin" ? sensorFromIdentification(await twinIdentification(user, plantId)) : null;

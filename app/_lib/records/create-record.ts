@@ -19,7 +19,7 @@ import { recordDocumentSchema, recordRequestSchema, type RecordDocument, type Re
 import { modelOfDefinition } from "./record-model";
 import { recordMargins } from "./record-margins";
 import { checkProofTest, storedProofTest } from "./proof-run";
-import { canonicalRef } from "./plant-ref";
+import { canonicalRef } from "@/app/_lib/plant-ref";
 
 /** The plant and tuning set a record is written from, as read at one moment. */
 interface Sources {

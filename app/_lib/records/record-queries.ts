@@ -8,7 +8,7 @@ import { isUuid, parsePlantRef, type BenchUser } from "@/app/_lib/bench-store";
 import { controllerConfigSchema } from "@/sim/control/config";
 import { recordDocumentSchema, type RecordDocument } from "./record-document";
 import { tuningSummary } from "./record-figures";
-import { canonicalRef } from "./plant-ref";
+import { canonicalRef } from "@/app/_lib/plant-ref";
 
 export interface RecordListFilter {
   /** "preset:<id>" | "plant:<uuid>"; anything else is ignored */
