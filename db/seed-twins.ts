@@ -20,7 +20,7 @@ import { guessMappingForText } from "../sim/import";
 import { transferFunctionParamsSchema } from "../sim/plant/transfer-function-params";
 import { simc } from "../sim/tuning/rules/simc";
 import { isRefusal } from "../sim/tuning/rules/tuning";
-import type { ProcessModel } from "../sim/tuning/models";
+import { modelOfTransferFunction } from "../sim/tuning/model-definition";
 import * as schema from "./schema";
 import { plants, users } from "./schema";
 import { demoPeople } from "./demo-people";
@@ -58,11 +58,7 @@ export async function seedDemoTwins(url: string): Promise<void> {
     });
     const [twin] = await db.select().from(plants).where(eq(plants.id, plantId));
     const def = transferFunctionParamsSchema.parse(twin.definition);
-    const [t1, t2 = 0] = def.timeConstantsS;
-    const model: ProcessModel =
-      def.timeConstantsS.length === 2
-        ? { kind: "sopdt", gainCPerPercent: def.gainCPerPercent, timeConstant1S: t1, timeConstant2S: t2, deadTimeS: def.deadTimeS }
-        : { kind: "fopdt", gainCPerPercent: def.gainCPerPercent, timeConstantS: t1, deadTimeS: def.deadTimeS };
+    const model = modelOfTransferFunction(def);
     const plantRef = `plant:${plantId}`;
     const tuned = (type: "PI" | "PID"): ControllerConfigInput => {
       const r = simc(model, type);

@@ -3,6 +3,7 @@
  * identification, the relay and bump tests on the engine, and the power curve.
  */
 export * from "./models";
+export * from "./model-definition";
 export * from "./rules";
 export * from "./robustness";
 export * from "./identify";

@@ -14,7 +14,7 @@ import type { Identification, StepRecord } from "@/sim/tuning/identify";
 import { detectStep, fitGainAndBaseline, fitQuality, noiseSigmaFromSecondDifferences, unitModelResponse } from "@/sim/tuning/identify";
 import type { FittedModel } from "@/sim/tuning/identify";
 import type { FopdtModel, SopdtModel } from "@/sim/tuning/models";
-import { timeConstantsOf } from "./twin-definition";
+import { timeConstantsOf } from "@/sim/tuning/model-definition";
 
 export const MAX_FIT_POINTS = 1200;
 

@@ -11,7 +11,8 @@ import type { FittedModel } from "@/sim/tuning/identify";
 import type { FopdtModel, SopdtModel } from "@/sim/tuning/models";
 import { ENGINE_VERSION } from "@/sim/version";
 import type { LogEncoding } from "./decode-log";
-import { timeConstantsOf, type CandidateKind } from "./twin-definition";
+import { timeConstantsOf } from "@/sim/tuning/model-definition";
+import type { CandidateKind } from "./twin-definition";
 
 export interface CandidateRecord {
   kind: CandidateKind;

@@ -12,6 +12,7 @@
  *   scale energy figures.
  */
 import type { FopdtModel, SopdtModel } from "@/sim/tuning/models";
+import { timeConstantsOf } from "@/sim/tuning/model-definition";
 import { transferFunctionParamsSchema, type TransferFunctionParams } from "@/sim/plant/transfer-function-params";
 
 export type CandidateKind = "fopdt" | "sopdt";
@@ -19,10 +20,6 @@ export type CandidateKind = "fopdt" | "sopdt";
 export interface StepLevels {
   outBeforePercent: number;
   pvBeforeC: number;
-}
-
-export function timeConstantsOf(model: FopdtModel | SopdtModel): number[] {
-  return model.kind === "fopdt" ? [model.timeConstantS] : [model.timeConstant1S, model.timeConstant2S];
 }
 
 export function twinDefinition(model: FopdtModel | SopdtModel, step: StepLevels, opts: { name: string; ambientC?: number | null }): TransferFunctionParams {
