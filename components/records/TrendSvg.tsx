@@ -1,6 +1,7 @@
 import { traceColors } from "@/tailwind.config";
 import type { TrendRow } from "@/app/_lib/records/trend-decimation";
 import { num } from "@/app/_lib/records/record-figures";
+import { trendScale } from "@/app/_lib/records/trend-scale";
 
 /**
  * A proof test's stored trend as a light SVG (server-rendered, prints as vectors): SP dashed
@@ -14,20 +15,11 @@ export function TrendSvg({ rows, title }: { rows: TrendRow[]; title: string }) {
   const R = 40;
   const T = 8;
   const B = 22;
-  const t0 = rows[0][0];
-  const t1 = rows[rows.length - 1][0];
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const r of rows) {
-    lo = Math.min(lo, r[1], r[2]);
-    hi = Math.max(hi, r[1], r[2]);
-  }
-  const pad = Math.max((hi - lo) * 0.08, 0.5);
-  lo -= pad;
-  hi += pad;
-  const x = (s: number) => L + ((s - t0) / (t1 - t0 || 1)) * (W - L - R);
-  const yT = (c: number) => T + (1 - (c - lo) / (hi - lo)) * (H - T - B);
-  const yO = (p: number) => T + (1 - Math.min(Math.max(p, 0), 100) / 100) * (H - T - B);
+  const scale = trendScale(rows);
+  const { t0, t1, lo, hi } = scale;
+  const x = (s: number) => L + scale.xFraction(s) * (W - L - R);
+  const yT = (c: number) => T + (1 - scale.tempFraction(c)) * (H - T - B);
+  const yO = (p: number) => T + (1 - scale.outFraction(p)) * (H - T - B);
   const path = (col: 1 | 2 | 3, y: (v: number) => number) => rows.map((r, i) => `${i ? "L" : "M"}${x(r[0]).toFixed(1)} ${y(r[col]).toFixed(1)}`).join("");
   return (
     <figure className="space-y-1">

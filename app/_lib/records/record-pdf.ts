@@ -22,6 +22,7 @@ import {
   type Figure,
 } from "./record-figures";
 import { pdfText } from "./pdf-text";
+import { trendScale } from "./trend-scale";
 
 const M = 50; // page margin, pt
 const W = 595.28 - 2 * M; // A4 text width
@@ -88,20 +89,12 @@ function trend(doc: Doc, t: ProofTestStored) {
   const width = W - 34 - 34;
   const rows = t.trend;
   if (rows.length < 2) return;
-  const t0 = rows[0][0];
-  const t1 = rows[rows.length - 1][0] || 1;
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const r of rows) {
-    lo = Math.min(lo, r[1], r[2]);
-    hi = Math.max(hi, r[1], r[2]);
-  }
-  const pad = Math.max((hi - lo) * 0.08, 0.5);
-  lo -= pad;
-  hi += pad;
-  const x = (s: number) => left + ((s - t0) / (t1 - t0)) * width;
-  const yT = (c: number) => top + h - ((c - lo) / (hi - lo)) * h;
-  const yO = (p: number) => top + h - (Math.min(Math.max(p, 0), 100) / 100) * h;
+  const scale = trendScale(rows);
+  const { t0, lo, hi } = scale;
+  const t1 = scale.t1 || 1;
+  const x = (s: number) => left + scale.xFraction(s) * width;
+  const yT = (c: number) => top + h - scale.tempFraction(c) * h;
+  const yO = (p: number) => top + h - scale.outFraction(p) * h;
   doc.save();
   doc.rect(left, top, width, h).lineWidth(0.5).strokeColor(RULE).stroke();
   const poly = (col: number, y: (v: number) => number, color: string, dashed: boolean) => {

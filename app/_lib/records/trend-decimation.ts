@@ -2,6 +2,12 @@
 // trace. Each bucket of samples keeps the rows where PV is lowest and highest (in time order), so
 // a peak or a dip survives the reduction (min/max decimation, as the Bench trend does per pixel);
 // the first and last rows are always kept, so the trend spans the whole run.
+//
+// Not components/trend/decimate.ts's decimateMinMax, on purpose: that one takes each series' own
+// minimum and maximum per column and puts them at the column's first and last time, so its rows
+// are not samples (SP, PV and OUT of one row may come from different instants). A record's row
+// is stored and printed as one instant of the run, and only PV's extremes pick the rows here;
+// changing that would change every new record's stored trend.
 import type { Trace } from "@/sim/drill/trace";
 
 export type TrendRow = [number, number, number, number];
