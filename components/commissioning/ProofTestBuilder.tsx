@@ -13,6 +13,7 @@ import { useBench } from "@/components/bench/store";
 import { drillSchema, type DrillInput } from "@/sim/drill/schema";
 import { resolvePlant } from "@/sim/drill/resolve";
 import { droppedEvents, drillOnPlant, ENCLOSURE_ONLY, lengthWarning, ladderDrill, ladderLabel, ladderProblem, reachWarnings, type LadderSpec, type SiteDisturbance } from "./proof-drill";
+import { UnitRow } from "@/components/forms/UnitRow";
 
 const num = (s: string) => Number(s.trim().replace(",", "."));
 const small = "num w-16 rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-right text-xs";
@@ -106,18 +107,18 @@ export function ProofTestBuilder({ baseDrill }: { baseDrill: DrillInput }) {
       </div>
 
       <div hidden={source !== "timeline"} className="space-y-1.5">
-        <Field id="sp-start" label="Working SP" unit="°C">
+        <UnitRow id="sp-start" label="Working SP" unit="°C">
           <input id="sp-start" inputMode="decimal" value={startC} onChange={(e) => setStartC(e.target.value)} className={small} />
-        </Field>
-        <Field id="sp-lead" label="Settled before the first step" unit="min">
+        </UnitRow>
+        <UnitRow id="sp-lead" label="Settled before the first step" unit="min">
           <input id="sp-lead" inputMode="decimal" value={leadMin} onChange={(e) => setLeadMin(e.target.value)} className={small} />
-        </Field>
-        <Field id="sp-steps" label="SP ladder" unit="°C">
+        </UnitRow>
+        <UnitRow id="sp-steps" label="SP ladder" unit="°C">
           <input id="sp-steps" value={steps} onChange={(e) => setSteps(e.target.value)} className="num w-28 rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-xs" />
-        </Field>
-        <Field id="sp-hold" label="Hold each step" unit="min">
+        </UnitRow>
+        <UnitRow id="sp-hold" label="Hold each step" unit="min">
           <input id="sp-hold" inputMode="decimal" value={holdMin} onChange={(e) => setHoldMin(e.target.value)} className={small} />
-        </Field>
+        </UnitRow>
         <fieldset className="space-y-1 border-t border-rule pt-1.5">
           <legend className="text-ink-faint">Then, at the last SP, one after another</legend>
           {KINDS.map((k) => {
@@ -174,20 +175,6 @@ export function ProofTestBuilder({ baseDrill }: { baseDrill: DrillInput }) {
 
 const formatHours = (s: number) => (s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.round((s % 3600) / 60)} min` : `${Math.round(s / 60)} min`);
 
-function Field({ id, label, unit, children }: { id: string; label: string; unit: string; children: React.ReactNode }) {
-  return (
-    <div className="flex items-center justify-between gap-2">
-      <label htmlFor={id} className="text-ink-soft">
-        {label}
-      </label>
-      <span className="flex items-center gap-1">
-        {children}
-        <span className="num w-8 text-ink-faint">{unit}</span>
-      </span>
-    </div>
-  );
-}
-
 function Inline({ id, label, text, unit, value, onChange }: { id: string; label: string; text: string; unit: string; value: string; onChange: (v: string) => void }) {
   return (
     <span className="flex items-center gap-1">
@@ -233,7 +220,7 @@ function StoredDrillPicker({ baseDrill, onError }: { baseDrill: DrillInput; onEr
   if (published.length === 0) return <p className="text-ink-soft">No published drill to take: build a timeline here instead.</p>;
   return (
     <div className="space-y-1.5">
-      <Field id="sp-drill" label="Stored drill" unit="">
+      <UnitRow id="sp-drill" label="Stored drill" unit="">
         <select id="sp-drill" value={chosen?.id ?? ""} onChange={(e) => (setDrillId(e.target.value), setVersion(""))} className="max-w-44 rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-xs">
           {published.map((d) => (
             <option key={d.id} value={d.id}>
@@ -241,8 +228,8 @@ function StoredDrillPicker({ baseDrill, onError }: { baseDrill: DrillInput; onEr
             </option>
           ))}
         </select>
-      </Field>
-      <Field id="sp-version" label="Published version" unit="">
+      </UnitRow>
+      <UnitRow id="sp-version" label="Published version" unit="">
         <select id="sp-version" value={v ?? ""} onChange={(e) => setVersion(e.target.value)} className="rounded-sm border border-rule-strong bg-paper px-1 py-0.5 text-xs">
           {versions.map((n) => (
             <option key={n} value={n}>
@@ -250,7 +237,7 @@ function StoredDrillPicker({ baseDrill, onError }: { baseDrill: DrillInput; onEr
             </option>
           ))}
         </select>
-      </Field>
+      </UnitRow>
       <p className="text-ink-faint">The drill runs on this plant: its plant, sensor chain, final element and cutout are replaced by this plant&apos;s; its timeline and scoring are kept. Check its setpoints suit this plant.</p>
       <button type="button" onClick={() => void takeDrill()} disabled={loading} className="rounded-sm border border-ink px-2.5 py-1 font-semibold hover:bg-paper-sunk disabled:opacity-50">
         {loading ? "Loading…" : "Use this drill"}

@@ -15,6 +15,7 @@ import { Duration, Qty } from "../plants/format";
 import { useBench, type DisplayUnits } from "../store";
 import { FORM_LABELS, RULE_LABELS, ruleChoices } from "./labels";
 import { ProposalView, type ProposalOrigin } from "./ProposalView";
+import { UnitRow } from "@/components/forms/UnitRow";
 
 export interface RelayPanelProps {
   units: DisplayUnits;
@@ -117,26 +118,26 @@ export function RelayPanel({ units, spanC, controllerForm, onStart, onCancel, on
           </select>
         </div>
         {levels === "amplitude" ? (
-          <Row id="rt-amplitude" label="Relay amplitude" unit="%">
+          <UnitRow id="rt-amplitude" label="Relay amplitude" unit="%">
             <input id="rt-amplitude" inputMode="decimal" value={amplitude} onChange={(e) => setAmplitude(e.target.value)} className={input} />
-          </Row>
+          </UnitRow>
         ) : (
           <>
-            <Row id="rt-high" label="High OUT" unit="%">
+            <UnitRow id="rt-high" label="High OUT" unit="%">
               <input id="rt-high" inputMode="decimal" value={high} onChange={(e) => setHigh(e.target.value)} className={input} />
-            </Row>
-            <Row id="rt-low" label="Low OUT" unit="%">
+            </UnitRow>
+            <UnitRow id="rt-low" label="Low OUT" unit="%">
               <input id="rt-low" inputMode="decimal" value={low} onChange={(e) => setLow(e.target.value)} className={input} />
-            </Row>
+            </UnitRow>
           </>
         )}
-        <Row id="rt-hysteresis" label="Hysteresis ε" unit={T}>
+        <UnitRow id="rt-hysteresis" label="Hysteresis ε" unit={T}>
           <input id="rt-hysteresis" inputMode="decimal" placeholder="auto" value={hysteresis} onChange={(e) => setHysteresis(e.target.value)} className={input} />
-        </Row>
+        </UnitRow>
         <p className="text-right text-[11px] text-ink-faint">blank = automatic, 3σ of the PV noise; the relay switches at SP ± ε</p>
-        <Row id="rt-cycles" label="Cycles measured" unit="">
+        <UnitRow id="rt-cycles" label="Cycles measured" unit="">
           <input id="rt-cycles" inputMode="numeric" value={cycles} onChange={(e) => setCycles(e.target.value)} className={input} />
-        </Row>
+        </UnitRow>
         <div className="flex items-center justify-between gap-2">
           <label htmlFor="rt-rule" className="text-ink-soft">
             Rule
@@ -244,20 +245,6 @@ function RelayProgressView({ progress: p, units: u, running: live }: { progress:
           <Duration seconds={p.puEstimateS} />
         </dd>
       </dl>
-    </div>
-  );
-}
-
-function Row({ id, label, unit, children }: { id: string; label: string; unit: string; children: React.ReactNode }) {
-  return (
-    <div className="flex items-center justify-between gap-2">
-      <label htmlFor={id} className="text-ink-soft">
-        {label}
-      </label>
-      <span className="flex items-center gap-1">
-        {children}
-        <span className="num w-8 text-ink-faint">{unit}</span>
-      </span>
     </div>
   );
 }
