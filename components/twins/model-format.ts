@@ -3,6 +3,8 @@
  * (with minutes beside them once they pass two minutes), fit figures to sensible digits.
  * Every number carries its unit.
  */
+import { mebibytesText } from "@/sim/import/byte-size";
+
 export interface ModelFigures {
   gainCPerPercent: number;
   timeConstantsS: readonly number[];
@@ -37,10 +39,11 @@ export const r2Text = (r2: number) => (Number.isFinite(r2) ? r2.toFixed(4) : "�
 export const percentText = (x: number) => (Number.isFinite(x) ? `${sig3(100 * x)} %` : "—");
 export const celsiusText = (c: number | null | undefined) => (c == null || !Number.isFinite(c) ? "—" : `${sig3(c)} °C`);
 
+/** A file's size: bytes, KiB to 3 significant digits, or MiB in the upload limit's words (sim/import/byte-size.ts). */
 export function byteSizeText(n: number): string {
   if (n < 1024) return `${n} B`;
   if (n < 1024 * 1024) return `${sig3(n / 1024)} KiB`;
-  return `${sig3(n / (1024 * 1024))} MiB`;
+  return `${mebibytesText(n)} MiB`;
 }
 
 export const kindLabel = (k: "fopdt" | "sopdt") => (k === "fopdt" ? "FOPDT" : "SOPDT");

@@ -7,6 +7,7 @@ import { detectStep, MIN_STEP_PERCENT, median, noiseSigmaFromSecondDifferences, 
 import { MAX_UPLOAD_BYTES, MIN_LOG_ROWS, type ImportRefusal, type LogMapping, type MappedLog } from "./log-mapping";
 import { mapLog } from "./map-log";
 import { readLogTable, type LogTable } from "./read-log-table";
+import { mebibytesText } from "./byte-size";
 
 /** Intervals differing from the median by more than this share make the sampling irregular (common practice). */
 export const IRREGULAR_SHARE = 0.1;
@@ -44,10 +45,6 @@ function refuse(code: ImportRefusal["code"], message: string): ImportRefusal {
 
 function r3(x: number): string {
   return String(+x.toPrecision(3));
-}
-
-function mb(bytes: number): string {
-  return String(+(bytes / (1024 * 1024)).toFixed(1));
 }
 
 /** 2097152 → "2,097,152" (not toLocaleString: the text must not depend on the runtime's locale) */
@@ -116,7 +113,7 @@ function summarise(log: MappedLog, table: LogTable, mapping: LogMapping): LogSum
 export function importLog(text: string, byteSize: number, mapping: LogMapping): ImportResult {
   try {
     if (!(byteSize > 0) || typeof text !== "string" || text.trim() === "") return refuse("empty", "the file is empty: choose the CSV or TSV file the logger wrote");
-    if (byteSize > MAX_UPLOAD_BYTES) return refuse("too-large", `the file is ${mb(byteSize)} MiB; the limit is ${mb(MAX_UPLOAD_BYTES)} MiB (${groupThousands(MAX_UPLOAD_BYTES)} bytes): trim the log to the bump test`);
+    if (byteSize > MAX_UPLOAD_BYTES) return refuse("too-large", `the file is ${mebibytesText(byteSize)} MiB; the limit is ${mebibytesText(MAX_UPLOAD_BYTES)} MiB (${groupThousands(MAX_UPLOAD_BYTES)} bytes): trim the log to the bump test`);
     const read = readLogTable(text, { delimiter: mapping.delimiter, headerRow: mapping.headerRow });
     if (!read.ok) return read;
     const mapped = mapLog(read.table, mapping);

@@ -1,3 +1,4 @@
+export * from "./byte-size";
 export * from "./log-mapping";
 export * from "./parse-number";
 export * from "./parse-timestamp";
