@@ -11,7 +11,7 @@ export function TrendSvg({ rows, title }: { rows: TrendRow[]; title: string }) {
   if (rows.length < 2) return <p className="text-sm text-ink-faint">No trend stored.</p>;
   const W = 720;
   const H = 220;
-  const L = 48;
+  const L = 66; // room for a label such as "156.9 °C"
   const R = 40;
   const T = 8;
   const B = 22;
