@@ -169,19 +169,24 @@ async function ownPlantForUpdate(tx: Transaction, user: BenchUser, plantId: stri
 
 // ---- plants ----
 
+/** The columns of a new plant row owned by the user (the definition carries the plant's name too). */
+export function newPlantValues(user: BenchUser, p: z.output<typeof plantInputSchema>) {
+  return {
+    organizationId: user.organizationId,
+    ownerId: user.id,
+    name: p.name,
+    description: p.description,
+    definition: { ...p.definition, name: p.name },
+    origin: p.origin,
+  };
+}
+
 export async function createPlant(user: BenchUser, input: PlantInput): Promise<{ id: string; ref: string }> {
   const p = validated(plantInputSchema, input);
   const [row] = await getDb().transaction((tx) =>
     tx
       .insert(plants)
-      .values({
-        organizationId: user.organizationId,
-        ownerId: user.id,
-        name: p.name,
-        description: p.description,
-        definition: { ...p.definition, name: p.name },
-        origin: p.origin,
-      })
+      .values(newPlantValues(user, p))
       .returning({ id: plants.id }),
   );
   return { id: row.id, ref: plantRefOf(row.id) };

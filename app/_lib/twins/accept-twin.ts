@@ -12,7 +12,7 @@ import { getDb } from "@/db/client";
 import { dataUploads, plants } from "@/db/schema";
 import { logMappingSchema, MAX_UPLOAD_BYTES } from "@/sim/import";
 import { ActionRefused } from "../action";
-import { firstIssue, plantInputSchema, type BenchUser } from "../bench-store";
+import { firstIssue, newPlantValues, plantInputSchema, type BenchUser } from "../bench-store";
 import { sha256Hex } from "./checksum";
 import { decodeLogBytes } from "./decode-log";
 import { identificationRecord } from "./identification-record";
@@ -130,11 +130,7 @@ export async function acceptTwin(user: BenchUser, input: AcceptTwinInput): Promi
     const [row] = await tx
       .insert(plants)
       .values({
-        organizationId: user.organizationId,
-        ownerId: user.id,
-        name: p.name,
-        description: p.description,
-        definition: { ...p.definition, name: p.name },
+        ...newPlantValues(user, p),
         origin: "twin",
         shared,
         sourceUploadId: upload.id,
