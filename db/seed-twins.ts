@@ -3,10 +3,10 @@
 // tuning record with both proven on a site proof test (SP ladder + ambient change + supply dip).
 // Everything goes through the same domain functions the app uses (acceptTwin re-identifies the
 // uploaded bytes; createTuningRecord re-runs the proof tests), so the demo shows honest numbers.
-// Idempotent: nothing is made when the demo twin already exists.
+// Idempotent: each step is found or made, and nothing is done once the signed-off record exists.
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { and, eq, sql as dsql } from "drizzle-orm";
+import { and, eq, isNotNull, sql as dsql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import { createTuningSet } from "../app/_lib/bench-store";
@@ -22,10 +22,11 @@ import { simc } from "../sim/tuning/rules/simc";
 import { isRefusal } from "../sim/tuning/rules/tuning";
 import { modelOfTransferFunction } from "../sim/tuning/model-definition";
 import * as schema from "./schema";
-import { plants, users } from "./schema";
+import { plants, tuningRecords, tuningSets, users } from "./schema";
 import { demoPeople } from "./demo-people";
 
 export const DEMO_TWIN_NAME = "Veneer dryer VD-2 (twin)";
+export const DEMO_RECORD_TITLE = "Veneer dryer VD-2 — hand-over tuning";
 const SAMPLE = "dryer-bump-irregular.csv";
 
 export async function seedDemoTwins(url: string): Promise<void> {
@@ -38,14 +39,19 @@ export async function seedDemoTwins(url: string): Promise<void> {
     const db = g.loopwrightDb as ReturnType<typeof drizzle<typeof schema>>;
     const [tech] = await db.select().from(users).where(eq(dsql`lower(${users.email})`, demoPeople.instructors[1].email));
     if (!tech) throw new Error("the demo people must be seeded first");
-    const [existing] = await db.select({ id: plants.id }).from(plants).where(and(eq(plants.ownerId, tech.id), eq(plants.name, DEMO_TWIN_NAME)));
-    if (existing) return;
     const user = { id: tech.id, organizationId: tech.organizationId };
+    // each step is found or made, so a seed interrupted half-way is completed by the next one
+    const [done] = await db
+      .select({ id: tuningRecords.id })
+      .from(tuningRecords)
+      .where(and(eq(tuningRecords.ownerId, tech.id), eq(tuningRecords.title, DEMO_RECORD_TITLE), isNotNull(tuningRecords.signedOffBy)));
+    if (done) return;
+    const [existing] = await db.select({ id: plants.id }).from(plants).where(and(eq(plants.ownerId, tech.id), eq(plants.name, DEMO_TWIN_NAME)));
 
     const bytes = readFileSync(path.resolve(process.env.LOOPWRIGHT_ROOT ?? process.cwd(), "public/samples", SAMPLE));
     const guessed = guessMappingForText(bytes.toString("utf8"));
     if (!guessed.ok) throw new Error(`demo sample ${SAMPLE}: ${guessed.message}`);
-    const { plantId } = await acceptTwin(user, {
+    const plantId = existing?.id ?? (await acceptTwin(user, {
       fileName: SAMPLE,
       bytes,
       mapping: guessed.mapping,
@@ -55,7 +61,7 @@ export async function seedDemoTwins(url: string): Promise<void> {
       // the dryer hall's air during the (invented) test; without it the twin would take the PV before the step
       ambientC: 18,
       shared: true,
-    });
+    })).plantId;
     const [twin] = await db.select().from(plants).where(eq(plants.id, plantId));
     const def = transferFunctionParamsSchema.parse(twin.definition);
     const model = modelOfTransferFunction(def);
@@ -67,8 +73,12 @@ export async function seedDemoTwins(url: string): Promise<void> {
     };
     const pi = tuned("PI");
     const pid = tuned("PID");
-    await createTuningSet(user, { plantRef, name: "PI — SIMC", notes: "From the twin's SOPDT model (SIMC, τc = θ).", controller: pi });
-    const pidSet = await createTuningSet(user, { plantRef, name: "PID — SIMC", notes: "From the twin's SOPDT model (SIMC, τc = θ).", controller: pid });
+    const tuningSet = async (name: string, controller: ControllerConfigInput) => {
+      const [found] = await db.select({ id: tuningSets.id }).from(tuningSets).where(and(eq(tuningSets.ownerId, tech.id), eq(tuningSets.plantRef, plantRef), eq(tuningSets.name, name)));
+      return found ?? (await createTuningSet(user, { plantRef, name, notes: "From the twin's SOPDT model (SIMC, τc = θ).", controller }));
+    };
+    await tuningSet("PI — SIMC", pi);
+    const pidSet = await tuningSet("PID — SIMC", pid);
 
     const working = Math.round(def.operatingPoint.temperatureC + 5);
     const base = benchDrill({ plant: { kind: "stored", definition: def, cutoutTripC: working + 40 }, title: DEMO_TWIN_NAME, setpointC: working, reference: pid, seed: 2026 });
@@ -92,14 +102,15 @@ export async function seedDemoTwins(url: string): Promise<void> {
       controller: controllerConfigSchema.parse(controller),
       seed: 2026,
     });
-    const { id } = await createTuningRecord(user, {
+    const [unsigned] = await db.select({ id: tuningRecords.id }).from(tuningRecords).where(and(eq(tuningRecords.ownerId, tech.id), eq(tuningRecords.title, DEMO_RECORD_TITLE)));
+    const { id } = unsigned ?? (await createTuningRecord(user, {
       plantRef,
       tuningSetId: pidSet.id,
-      title: "Veneer dryer VD-2 — hand-over tuning",
+      title: DEMO_RECORD_TITLE,
       notes:
         "Demo record (invented). Worked out on the twin before the dryer was taken offline: PID settles the SP ladder with less overshoot than PI and recovers faster from the ambient drop. The PV filter of 2 s keeps the logged noise (σ ≈ 0.06 °C) off the derivative.",
       proofTests: [proofTest("PI", pi), proofTest("PID — SIMC", pid)],
-    });
+    }));
     await signOffRecord(user, { recordId: id, name: "Hanne Lindqvist", date: new Date().toISOString().slice(0, 10) });
   } finally {
     g.loopwrightDb = previous;

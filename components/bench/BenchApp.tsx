@@ -88,6 +88,8 @@ export interface BenchStartPlant {
   origin: "physical" | "twin";
   /** a twin's noise σ and quantization step read from its uploaded log, when known */
   sensorFromData: SensorFromData | null;
+  /** the plant is the user's own and not shared (a tuning record on it is still read organisation-wide) */
+  privateToUser?: boolean;
 }
 
 /** Sensor range for a stored plant: the default 0–200 °C, widened when the cutout sits near its top. */

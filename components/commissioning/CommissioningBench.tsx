@@ -13,7 +13,7 @@ export function CommissioningBench({ plant }: { plant: BenchStartPlant }) {
     <BenchApp
       startPlant={plant}
       commissioning={{
-        header: <HandoverPath plantRef={plant.ref} plantName={plant.title} origin={plant.origin} />,
+        header: <HandoverPath plantRef={plant.ref} plantName={plant.title} origin={plant.origin} privatePlant={plant.privateToUser ?? false} />,
         proofEditor: (baseDrill) => <ProofTestBuilder baseDrill={baseDrill} />,
       }}
     />

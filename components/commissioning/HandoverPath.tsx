@@ -20,6 +20,8 @@ export interface HandoverPathProps {
   plantRef: string;
   plantName: string;
   origin: "physical" | "twin";
+  /** the user's own unshared plant: the record form says who will read the record */
+  privatePlant?: boolean;
 }
 
 const OPENS: Record<StageId, { panel: BenchPanelId; label: string }> = {
@@ -35,7 +37,7 @@ const MARK: Record<StageState, { text: string; className: string }> = {
   done: { text: "done", className: "border-ok/60 text-ok" },
 };
 
-export function HandoverPath({ plantRef, plantName, origin }: HandoverPathProps) {
+export function HandoverPath({ plantRef, plantName, origin, privatePlant = false }: HandoverPathProps) {
   const [recordId, setRecordId] = useState<string | null>(null);
   const s = useBench(useShallow((st) => ({ powerCurve: st.powerCurve ?? st.findings.powerCurve, findings: st.findings, siteProof: st.siteProof, savedTuningSet: st.savedTuningSet, unit: st.units.temperature, requestFocus: st.requestFocus })));
   // the same list the record form and the Bench's tuning sets read (one SWR key, one request)
@@ -78,7 +80,7 @@ export function HandoverPath({ plantRef, plantName, origin }: HandoverPathProps)
           );
         })}
       </ol>
-      <RecordForm plantRef={plantRef} plantName={plantName} origin={origin} onWritten={setRecordId} />
+      <RecordForm plantRef={plantRef} plantName={plantName} origin={origin} privatePlant={privatePlant} onWritten={setRecordId} />
     </section>
   );
 }

@@ -23,10 +23,12 @@ export interface RecordFormProps {
   plantRef: string;
   plantName: string;
   origin: "physical" | "twin";
+  /** the user's own unshared plant */
+  privatePlant?: boolean;
   onWritten?(id: string): void;
 }
 
-export function RecordForm({ plantRef, plantName, origin, onWritten }: RecordFormProps) {
+export function RecordForm({ plantRef, plantName, origin, privatePlant = false, onWritten }: RecordFormProps) {
   const router = useRouter();
   const { data, mutate } = useSWR<{ tuningSets: TuningSetItem[] }>(tuningSetsKey(plantRef), fetchJson);
   const { findings, powerCurve, savedTuningSet } = useBench(useShallow((s) => ({ findings: s.findings, powerCurve: s.powerCurve ?? s.findings.powerCurve, savedTuningSet: s.savedTuningSet })));
@@ -144,6 +146,11 @@ export function RecordForm({ plantRef, plantName, origin, onWritten }: RecordFor
           {included.length} of {runs.length}, re-run on the server when the record is written
         </dd>
       </dl>
+      {privatePlant ? (
+        <p className="text-xs text-ink-soft" data-testid="record-visibility-note">
+          This plant is private to you, but a tuning record is a hand-over document: everyone in your organisation can read it, with the plant&apos;s model{origin === "twin" ? " and the name and checksum of its source file" : ""}.
+        </p>
+      ) : null}
       {problem ? (
         <p role="alert" className="rounded-sm border border-alarm/40 bg-alarm-soft px-3 py-2 text-sm text-alarm">
           {problem}

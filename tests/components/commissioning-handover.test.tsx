@@ -214,6 +214,15 @@ describe("the hand-over path", () => {
     unmount();
   });
 
+  it("says that a record on a private plant is read by the whole organisation", async () => {
+    stubTuningSets([]);
+    const { unmount } = render(<HandoverPath plantRef={plantRef} plantName="Cabinet K-7" origin="twin" privatePlant />, { wrapper: freshSwr });
+    expect(screen.getByTestId("record-visibility-note").textContent).toMatch(/private to you.*everyone in your organisation can read it.*source file/);
+    unmount();
+    render(<HandoverPath plantRef={plantRef} plantName="Cabinet K-7" origin="twin" />, { wrapper: freshSwr });
+    expect(screen.queryByTestId("record-visibility-note")).toBeNull();
+  });
+
   it("brings the right Bench panel forward from each stage's button", async () => {
     stubTuningSets([]);
     render(<HandoverPath plantRef={plantRef} plantName="Cabinet K-7" origin="physical" />, { wrapper: freshSwr });

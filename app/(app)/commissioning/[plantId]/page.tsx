@@ -18,5 +18,5 @@ export default async function CommissioningPage({ params }: { params: Promise<{ 
   const plant = await plantFor(user, plantId);
   if (!plant || plant.origin === "preset") notFound();
   const sensorFromData = plant.origin === "twin" ? sensorFromIdentification(await twinIdentification(user, plantId)) : null;
-  return <CommissioningBench plant={{ ref: plant.ref, title: plant.title, definition: plant.definition, origin: plant.origin, sensorFromData }} />;
+  return <CommissioningBench plant={{ ref: plant.ref, title: plant.title, definition: plant.definition, origin: plant.origin, sensorFromData, privateToUser: plant.source === "own" && !plant.shared }} />;
 }
