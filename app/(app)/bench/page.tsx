@@ -1,11 +1,9 @@
 import type { Metadata } from "next";
 import { guardPage } from "@/app/_lib/guard";
 import { parsePlantRef } from "@/app/_lib/plant-ref";
-import { plantFor } from "@/db/bench-queries";
+import { benchStartPlant } from "@/app/_lib/bench-start-plant";
 import { BenchApp } from "@/components/bench/BenchApp";
-import { sensorFromIdentification } from "@/components/bench/sensor-from-data";
 import { PLANT_PRESETS } from "@/sim/plant/presets";
-import { twinIdentification } from "../commissioning/[plantId]/twin-identification";
 
 export const metadata: Metadata = { title: "Bench" };
 
@@ -19,13 +17,7 @@ export default async function BenchPage({ searchParams }: { searchParams: Promis
     const { presetId } = ref;
     if (PLANT_PRESETS.some((p) => p.id === presetId)) return <BenchApp initialPresetId={presetId} />;
   }
-  if (ref?.kind === "plant") {
-    const { plantId } = ref;
-    const plant = await plantFor(user, plantId);
-    if (plant && plant.origin !== "preset") {
-      const sensorFromData = plant.origin === "twin" ? sensorFromIdentification(await twinIdentification(user, plantId)) : null;
-      return <BenchApp startPlant={{ ref: plant.ref, title: plant.title, definition: plant.definition, origin: plant.origin, sensorFromData }} />;
-    }
-  }
+  const plant = ref?.kind === "plant" ? await benchStartPlant(user, ref.plantId) : null;
+  if (plant) return <BenchApp startPlant={plant} />;
   return <BenchApp />;
 }
