@@ -22,27 +22,21 @@ import {
   type BenchUser,
 } from "@/app/_lib/bench-store";
 import { hashPassword } from "@/app/_lib/password";
-import { newUserId } from "@/app/_lib/tokens";
 import { plantByRef, plantFor, plantsFor, runFor, runsFor, tuningSetsFor } from "@/db/bench-queries";
 import { getDb } from "@/db/client";
-import { organizations, plants, savedRuns, sessions, users } from "@/db/schema";
+import { organizations, plants, savedRuns, sessions } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { runDrill } from "@/sim/drill/run-drill";
 import type { DrillInput } from "@/sim/drill/schema";
 import { PLANT_PRESETS } from "@/sim/plant/presets";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 import { randomBytes } from "node:crypto";
-import { uniqueEmail } from "./helpers";
+import { makeUser } from "./helpers";
 import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
 
 const db = () => getDb();
 let passwordHash = "";
 
-async function makeUser(organizationId: string, name: string): Promise<BenchUser> {
-  const id = newUserId();
-  await db().insert(users).values({ id, organizationId, email: uniqueEmail(name.toLowerCase()), displayName: name, passwordHash, role: "trainee" });
-  return { id, organizationId };
-}
 
 let owner: BenchUser; // Kestrel Fen
 let colleague: BenchUser; // Kestrel Fen
@@ -52,9 +46,9 @@ beforeAll(async () => {
   passwordHash = await hashPassword("not-used-for-sign-in");
   const [demo] = await db().select().from(organizations).where(eq(organizations.name, DEMO_ORGANIZATION));
   const [other] = await db().insert(organizations).values({ name: `Saltmarsh Packaging Works ${Date.now()}` }).returning();
-  owner = await makeUser(demo.id, "Owner");
-  colleague = await makeUser(demo.id, "Colleague");
-  outsider = await makeUser(other.id, "Outsider");
+  owner = await makeUser(demo.id, "Owner", passwordHash);
+  colleague = await makeUser(demo.id, "Colleague", passwordHash);
+  outsider = await makeUser(other.id, "Outsider", passwordHash);
 });
 
 // A small drying cabinet of our own (fictional), shared with the access registry; a fresh copy per use.

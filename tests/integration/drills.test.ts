@@ -10,22 +10,16 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { ActionRefused } from "@/app/_lib/action";
 import { archiveDrill, createDrill, duplicateDrill, newDraftFromPublished, publishDraft, saveDraft, setDrillShared, type DrillActor } from "@/app/_lib/drills";
 import { hashPassword } from "@/app/_lib/password";
-import { newUserId } from "@/app/_lib/tokens";
 import { drillFor, drillsFor, drillVersionFor } from "@/db/drill-queries";
 import { getDb } from "@/db/client";
-import { drills, drillVersions, organizations, users, type UserRole } from "@/db/schema";
+import { drills, drillVersions, organizations } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { drillSchema } from "@/sim/drill/schema";
-import { dbRefusal, uniqueEmail } from "./helpers";
+import { dbRefusal, makeUser } from "./helpers";
 
 const db = () => getDb();
 let passwordHash = "";
 
-async function makeUser(organizationId: string, name: string, role: UserRole): Promise<DrillActor> {
-  const id = newUserId();
-  await db().insert(users).values({ id, organizationId, email: uniqueEmail(name.toLowerCase()), displayName: name, passwordHash, role });
-  return { id, organizationId, role };
-}
 
 let owner: DrillActor; // instructor, Kestrel Fen
 let colleague: DrillActor; // instructor, Kestrel Fen
@@ -37,11 +31,11 @@ beforeAll(async () => {
   passwordHash = await hashPassword("not-used-for-sign-in");
   const [demo] = await db().select().from(organizations).where(eq(organizations.name, DEMO_ORGANIZATION));
   const [other] = await db().insert(organizations).values({ name: `Saltmarsh Packaging Works ${Date.now()}` }).returning();
-  owner = await makeUser(demo.id, "Owner", "instructor");
-  colleague = await makeUser(demo.id, "Colleague", "instructor");
-  admin = await makeUser(demo.id, "Admin", "admin");
-  trainee = await makeUser(demo.id, "Trainee", "trainee");
-  outsider = await makeUser(other.id, "Outsider", "instructor");
+  owner = await makeUser(demo.id, "Owner", passwordHash, "instructor");
+  colleague = await makeUser(demo.id, "Colleague", passwordHash, "instructor");
+  admin = await makeUser(demo.id, "Admin", passwordHash, "admin");
+  trainee = await makeUser(demo.id, "Trainee", passwordHash, "trainee");
+  outsider = await makeUser(other.id, "Outsider", passwordHash, "instructor");
 });
 
 const versionsOf = (drillId: string) => db().select().from(drillVersions).where(eq(drillVersions.drillId, drillId)).orderBy(drillVersions.version);

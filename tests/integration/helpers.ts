@@ -1,6 +1,7 @@
 import { desc, sql as dsql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { caughtMail } from "@/db/schema";
+import { caughtMail, users, type UserRole } from "@/db/schema";
+import { newUserId } from "@/app/_lib/tokens";
 
 /** Waits for a message to an address to reach the SMTP catcher (which stores it in PostgreSQL). */
 export async function waitForMail(to: string, subjectIncludes: string, timeoutMs = 30_000) {
@@ -36,4 +37,11 @@ export async function dbRefusal(query: PromiseLike<unknown>): Promise<string> {
     return messages.join(" / ");
   }
   throw new Error("the database accepted the change");
+}
+
+/** A user of the organisation (a trainee unless said), with a unique test address. */
+export async function makeUser<R extends UserRole = "trainee">(organizationId: string, name: string, passwordHash: string, role: R = "trainee" as R) {
+  const id = newUserId();
+  await getDb().insert(users).values({ id, organizationId, email: uniqueEmail(name.toLowerCase()), displayName: name, passwordHash, role });
+  return { id, organizationId, role };
 }

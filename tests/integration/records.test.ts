@@ -15,10 +15,9 @@ import { recordDetail, recordsFor } from "@/app/_lib/records/record-queries";
 import { recordTracesCsv } from "@/app/_lib/records/record-traces-csv";
 import { signOffRecord, updateRecordNotes } from "@/app/_lib/records/update-record";
 import { hashPassword } from "@/app/_lib/password";
-import { newUserId } from "@/app/_lib/tokens";
 import { SAMPLE_CABINET } from "@/app/_lib/access-registry";
 import { getDb } from "@/db/client";
-import { dataUploads, organizations, plants, tuningRecords, tuningSets, users } from "@/db/schema";
+import { dataUploads, organizations, plants, tuningRecords, tuningSets } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { drillSchema, type DrillInput } from "@/sim/drill/schema";
 import { runDrill } from "@/sim/drill/run-drill";
@@ -26,16 +25,11 @@ import { traceFingerprint } from "@/sim/drill/trace-hash";
 import { findPreset } from "@/sim/plant/presets";
 import ladder from "@/sim/examples/setpoint-ladder.json";
 import { createHash, randomUUID } from "node:crypto";
-import { dbRefusal, uniqueEmail } from "./helpers";
+import { dbRefusal, makeUser } from "./helpers";
 
 const db = () => getDb();
 let passwordHash = "";
 
-async function makeUser(organizationId: string, name: string): Promise<BenchUser> {
-  const id = newUserId();
-  await db().insert(users).values({ id, organizationId, email: uniqueEmail(name.toLowerCase()), displayName: name, passwordHash, role: "trainee" });
-  return { id, organizationId };
-}
 
 let author: BenchUser; // Kestrel Fen
 let colleague: BenchUser; // Kestrel Fen
@@ -95,9 +89,9 @@ beforeAll(async () => {
   passwordHash = await hashPassword("not-used-for-sign-in");
   const [demo] = await db().select().from(organizations).where(eq(organizations.name, DEMO_ORGANIZATION));
   const [other] = await db().insert(organizations).values({ name: `Saltmarsh Packaging Works ${Date.now()}` }).returning();
-  author = await makeUser(demo.id, `Rowan Author ${Date.now()}`);
-  colleague = await makeUser(demo.id, `Ilse Colleague ${Date.now()}`);
-  outsider = await makeUser(other.id, `Outsider ${Date.now()}`);
+  author = await makeUser(demo.id, `Rowan Author ${Date.now()}`, passwordHash);
+  colleague = await makeUser(demo.id, `Ilse Colleague ${Date.now()}`, passwordHash);
+  outsider = await makeUser(other.id, `Outsider ${Date.now()}`, passwordHash);
   presetSetId = (await createTuningSet(author, { plantRef: `preset:${PRESET}`, name: "Cure PID", notes: "", controller: pid })).id;
   plantId = (await createPlant(author, { name: "Bay 2 drying cabinet", description: "", definition: { ...SAMPLE_CABINET } })).id;
   plantSetId = (await createTuningSet(author, { plantRef: `plant:${plantId}`, name: "Bay 2 PID", notes: "", controller: pid })).id;

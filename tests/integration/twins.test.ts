@@ -13,15 +13,14 @@ import { acceptTwin } from "@/app/_lib/twins/accept-twin";
 import { sha256Hex } from "@/app/_lib/twins/checksum";
 import { reidentify, twinDetail, twinsFor, uploadContent } from "@/app/_lib/twins/twin-queries";
 import { hashPassword } from "@/app/_lib/password";
-import { newUserId } from "@/app/_lib/tokens";
 import { plantsFor } from "@/db/bench-queries";
 import { getDb } from "@/db/client";
-import { dataUploads, organizations, plants, users } from "@/db/schema";
+import { dataUploads, organizations, plants } from "@/db/schema";
 import { DEMO_ORGANIZATION } from "@/db/seed";
 import { readFileSync } from "node:fs";
 import { guessMappingForText, MAX_UPLOAD_BYTES, type LogMappingInput } from "@/sim/import";
 import { decodeLogBytes } from "@/app/_lib/twins/decode-log";
-import { uniqueEmail } from "./helpers";
+import { makeUser } from "./helpers";
 
 // The SOPDT fit is always made by the engine; to reach "the chosen SOPDT fit is missing" the
 // identification is wrapped so one test can drop it.
@@ -55,11 +54,6 @@ vi.mock("next/cache", () => ({ revalidatePath: (p: string) => revalidated.push(p
 
 const db = () => getDb();
 
-async function makeUser(organizationId: string, name: string, passwordHash: string): Promise<BenchUser> {
-  const id = newUserId();
-  await db().insert(users).values({ id, organizationId, email: uniqueEmail(`twins-${name.toLowerCase()}`), displayName: name, passwordHash, role: "trainee" });
-  return { id, organizationId };
-}
 
 let owner: BenchUser;
 let colleague: BenchUser;
