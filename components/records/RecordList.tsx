@@ -4,33 +4,29 @@ import { TableHead } from "@/components/tables/TableHead";
 
 const isoDate = (d: Date) => d.toISOString().slice(0, 10);
 
+/** One filter of the list: a GET parameter with an "all" choice first. */
+function FilterSelect({ label, name, value, all, options }: { label: string; name: string; value: string; all: string; options: { value: string; label: string }[] }) {
+  return (
+    <label className="text-sm">
+      <span className="mb-1 block text-ink-soft">{label}</span>
+      <select name={name} defaultValue={value} className="rounded-sm border border-rule-strong bg-paper-raised px-2 py-1.5 text-sm">
+        <option value="">{all}</option>
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
 /** Filter selects as a plain GET form: the filter lives in the address, so it can be bookmarked. */
 function RecordFilters({ data, filter }: { data: RecordListData; filter: RecordListFilter }) {
-  const select = "rounded-sm border border-rule-strong bg-paper-raised px-2 py-1.5 text-sm";
   return (
     <form method="get" className="flex flex-wrap items-end gap-3" role="search" aria-label="Filter records">
-      <label className="text-sm">
-        <span className="mb-1 block text-ink-soft">Plant</span>
-        <select name="plant" defaultValue={filter.plantRef ?? ""} className={select}>
-          <option value="">All plants</option>
-          {data.plants.map((p) => (
-            <option key={p.ref} value={p.ref}>
-              {p.name}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="text-sm">
-        <span className="mb-1 block text-ink-soft">Author</span>
-        <select name="author" defaultValue={filter.ownerId ?? ""} className={select}>
-          <option value="">All authors</option>
-          {data.authors.map((a) => (
-            <option key={a.id} value={a.id}>
-              {a.name}
-            </option>
-          ))}
-        </select>
-      </label>
+      <FilterSelect label="Plant" name="plant" value={filter.plantRef ?? ""} all="All plants" options={data.plants.map((p) => ({ value: p.ref, label: p.name }))} />
+      <FilterSelect label="Author" name="author" value={filter.ownerId ?? ""} all="All authors" options={data.authors.map((a) => ({ value: a.id, label: a.name }))} />
       <button type="submit" className="rounded-sm border border-rule-strong bg-paper-raised px-3 py-1.5 text-sm hover:border-ink">
         Show
       </button>
