@@ -21,6 +21,10 @@ import { readFileSync } from "node:fs";
 import { guessMappingForText, MAX_UPLOAD_BYTES, type LogMappingInput } from "@/sim/import";
 import { decodeLogBytes } from "@/app/_lib/twins/decode-log";
 import { makeUser } from "./helpers";
+import { benchDrill } from "@/components/bench/bench-drill";
+import { runDrill } from "@/sim/drill/run-drill";
+import { drillSchema } from "@/sim/drill/schema";
+import { plantDefinitionSchema } from "@/sim/plant/plant-definition";
 
 // The SOPDT fit is always made by the engine; to reach "the chosen SOPDT fit is missing" the
 // identification is wrapped so one test can drop it.
@@ -184,6 +188,17 @@ describe("accepting a twin", () => {
     expect(def.timeConstantsS).toHaveLength(2);
     expect(def.ambientC).toBe(def.operatingPoint.temperatureC);
     expect(plant.identification).toMatchObject({ chosen: "sopdt", ambient: { source: "pv-before-step" } });
+  });
+
+  it("is a plant a drill can run: its definition is a drill's plant, and a PI loop on it reaches a new SP", async () => {
+    const { plantId } = await acceptTwin(owner, input(bytesOf(toCsv(fopdtRows())), { name: "Oven 3 twin (drill)" }));
+    const [plant] = await db().select().from(plants).where(eq(plants.id, plantId));
+    const def = plantDefinitionSchema.parse(plant.definition);
+    const sp = Math.round((def.kind === "transfer-function" ? def.operatingPoint.temperatureC : 40) + 5);
+    const drill = { ...benchDrill({ plant: { kind: "stored", definition: def, cutoutTripC: sp + 40 }, title: "twin in a drill", setpointC: sp - 5, reference: { kind: "pid", form: "standard", kc: 2, ti: 200, td: 0 }, seed: 3 }), events: [{ type: "setpoint" as const, timeS: 60, setpointC: sp }], scoring: { windows: [{ id: "step", label: "SP step", kind: "setpoint" as const, startS: 60, endS: 3600, eventTimeS: 60 }] }, durationS: 3600 };
+    const run = runDrill(drillSchema.parse(drill));
+    // common practice: a PI loop with integral action settles at its SP; within 0.3 °C after an hour
+    expect(Math.abs(run.trace.trueC[run.trace.trueC.length - 1] - sp)).toBeLessThan(0.3);
   });
 
   it("reads a UTF-8 file with a byte-order mark and a Windows-1252 file with °C in its header", async () => {
